@@ -1,0 +1,27 @@
+#pragma once
+// The subcommands of `brownfloc`, free of CLI11 so that only main.cpp pays for it.
+#include <string>
+#include <vector>
+
+namespace brownfloc::app {
+
+// Exit codes (the project's INTERFACES): 0 ok, 1 internal error, 2 bad input,
+// 3 environment or I/O.
+inline constexpr int exit_ok = 0, exit_internal = 1, exit_bad_input = 2, exit_io = 3;
+
+struct CommonOptions {
+    std::string scenario_path;
+    std::vector<std::string> set_overrides;  // "section.key=value"
+    bool json = false;
+};
+
+struct DlvoOptions {
+    CommonOptions common;
+    std::string curve_path;  // empty: no curve file
+};
+
+// Each returns the exit code; input errors propagate as brownfloc::InputError.
+int run_dlvo(const DlvoOptions& options);
+int run_ccc(const CommonOptions& options);
+
+}  // namespace brownfloc::app

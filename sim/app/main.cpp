@@ -1,0 +1,69 @@
+// brownfloc: command-line entry point. The only file that includes CLI11.
+#include <CLI/CLI.hpp>
+#include <exception>
+#include <iostream>
+
+#include "commands.hpp"
+#include "potentials/input_error.hpp"
+
+namespace {
+
+using namespace brownfloc::app;
+
+void add_common(CLI::App& command, CommonOptions& options) {
+    command.add_option("scenario", options.scenario_path, "Scenario file (TOML); see the README for its keys")
+        ->required();
+    command.add_option("--set", options.set_overrides,
+                       "Override one scenario value: section.key=value, the value in TOML syntax "
+                       "(e.g. --set electrolyte.concentration_mM=25, --set species.2.radius_nm=40); "
+                       "repeatable. Units are those of the key's name.")
+        ->type_name("SECTION.KEY=VALUE")
+        ->allow_extra_args(false);
+    command.add_flag("--json", options.json,
+                     "Write only JSON to standard output (messages go to standard error)");
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    CLI::App app{"brownfloc: colloidal stability from DLVO theory, and (later) Brownian-dynamics "
+                 "aggregation runs. Energies in kT, lengths in nm, concentrations in mM, times in s."};
+    app.set_version_flag("--version", std::string("brownfloc ") + BROWNFLOC_VERSION);
+    app.require_subcommand(1);
+
+    DlvoOptions dlvo;
+    CLI::App* dlvo_command = app.add_subcommand(
+        "dlvo", "Interaction curve, energy barrier and minima (kT, nm), Fuchs stability ratios W "
+                "(plain, with hydrodynamics, and as measured), fast rate constant (m^3/s) and half-lives (s)");
+    add_common(*dlvo_command, dlvo.common);
+    dlvo_command->add_option("--curve", dlvo.curve_path,
+                             "Also write the interaction curve as CSV: gap_nm, total_kT, vdw_kT, "
+                             "double_layer_kT, force_pN (2000 log-spaced gaps)")
+        ->type_name("FILE.csv");
+
+    CommonOptions ccc;
+    CLI::App* ccc_command = app.add_subcommand(
+        "ccc", "Critical coagulation concentration (mM) of the varied salt (titrant, else salt): barrier "
+               "and kinetic criteria, and for 1:1, 2:2, 3:3 salts with the Schulze-Hardy exponent");
+    add_common(*ccc_command, ccc);
+
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::ParseError& e) {
+        if (e.get_exit_code() == 0) return app.exit(e);  // --help, --version
+        std::cerr << "error: " << e.what() << " (see brownfloc --help)\n";
+        return exit_bad_input;
+    }
+
+    try {
+        if (dlvo_command->parsed()) return run_dlvo(dlvo);
+        if (ccc_command->parsed()) return run_ccc(ccc);
+    } catch (const brownfloc::InputError& e) {
+        std::cerr << "error: " << e.what() << "\n";
+        return exit_bad_input;
+    } catch (const std::exception& e) {
+        std::cerr << "error: internal error: " << e.what() << " (please report this with the scenario)\n";
+        return exit_internal;
+    }
+    return exit_internal;
+}

@@ -1,0 +1,114 @@
+#pragma once
+// A validated scenario: what the user asked for, with defaults filled in and every value
+// checked once, here, so that the physics never re-checks. Parsed from TOML text (toml++)
+// plus `--set section.key=value` overrides; every problem throws brownfloc::InputError
+// whose message has the form
+//   FILE:LINE: [section] key = value: what is allowed
+// (main() prefixes "error: "). Values quoted from the file are escaped (\xNN) and cut at 80
+// characters.
+#include <cstdint>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "potentials/double_layer.hpp"
+
+namespace brownfloc::sim {
+
+struct SpeciesSpec {
+    std::string name;
+    double radius_nm = 0.0;             // median radius
+    double hamaker_J = 0.0;             // >= 0
+    double surface_potential_mV = 0.0;  // any sign, |psi| <= 500 mV
+    double number_fraction = 1.0;       // in (0, 1]; fractions sum to 1 within 1e-6
+    double radius_spread = 0.0;         // sd of ln(radius), in [0, 1); truncated at +-3 sd
+
+    friend bool operator==(const SpeciesSpec&, const SpeciesSpec&) = default;
+};
+
+struct IonSpec {
+    int valence = 0;                 // non-zero integer, |z| <= 4
+    double concentration_mM = 0.0;   // >= 0
+
+    friend bool operator==(const IonSpec&, const IonSpec&) = default;
+};
+
+struct RunSettings {  // [run]: used by `brownfloc run` (later issues); validated here
+    std::optional<std::int64_t> particles;
+    std::uint64_t seed = 1;
+    std::optional<double> end_time_s;
+    std::optional<double> end_half_lives;
+    std::optional<std::int64_t> steps;
+    std::string aggregation = "irreversible";             // | "reversible"
+    std::string cluster_mobility = "hydrodynamic-radius";  // | "free-draining"
+    std::optional<double> capture_gap_nm;
+    std::optional<double> cluster_gap_nm;
+    std::optional<double> time_step_s;
+    std::optional<double> max_time_step_s;
+    std::optional<std::int64_t> max_steps;
+
+    friend bool operator==(const RunSettings&, const RunSettings&) = default;
+};
+
+struct OutputSettings {  // [output]: used by `brownfloc run` (later issues)
+    std::optional<double> output_interval_s;
+    std::optional<std::string> output_spacing;  // "linear" | "log"
+    std::optional<double> snapshot_interval_s;
+    std::optional<std::int64_t> snapshots;
+    std::optional<double> checkpoint_interval_wall_s;
+
+    friend bool operator==(const OutputSettings&, const OutputSettings&) = default;
+};
+
+struct Scenario {
+    std::string source;  // file path as given (or "<text>")
+
+    // [particle] or [[species]]; always at least one entry.
+    std::vector<SpeciesSpec> species;
+    bool from_particle_table = false;
+
+    // [suspension]: at most one of the two (neither: half-lives are not computed).
+    std::optional<double> volume_fraction;        // (0, 0.64)
+    std::optional<double> number_density_per_m3;  // > 0
+
+    // [medium]: temperature from temperature_C or temperature_K (default 25 degC). Outside
+    // liquid water (0-100 degC) both overrides must be given.
+    double temperature_K = 298.15;
+    std::optional<double> viscosity_mPa_s;        // > 0
+    std::optional<double> relative_permittivity;  // >= 1
+
+    // [electrolyte]: exactly one of salt (+ concentration_mM) or ions.
+    std::optional<std::string> salt;  // a formula parse_salt_formula accepts
+    double salt_concentration_mM = 0.0;
+    std::vector<IonSpec> ions;        // electroneutral to 1e-9 relative
+    std::optional<std::string> titrant;  // salt the CCC varies, added on top
+
+    // [interaction]
+    potentials::DoubleLayerModel double_layer = potentials::DoubleLayerModel::linear_superposition;
+    bool retarded_vdw = false;
+    double min_gap_nm = 0.2;  // > 0
+
+    RunSettings run;
+    OutputSettings output;
+
+    // "key = value" for each default that was applied, e.g. "[interaction] min_gap_nm = 0.2".
+    std::vector<std::string> defaults_applied;
+
+    // Field by field, source and defaults_applied included (tests compare resolved round trips).
+    friend bool operator==(const Scenario&, const Scenario&) = default;
+};
+
+// Reads and parses the file at path; an unreadable file is an InputError naming it.
+[[nodiscard]] Scenario load_scenario(const std::string& path, const std::vector<std::string>& set_overrides = {});
+
+// Parses scenario text; source_name appears in messages in place of a file name.
+[[nodiscard]] Scenario parse_scenario(const std::string& text, const std::string& source_name,
+                                      const std::vector<std::string>& set_overrides = {});
+
+// The resolved scenario (defaults filled in) as TOML text, which parses back to the same Scenario.
+[[nodiscard]] std::string resolved_scenario_toml(const Scenario& scenario);
+
+// Names for the double-layer model as written in scenario files.
+[[nodiscard]] const char* double_layer_name(potentials::DoubleLayerModel model);
+
+}  // namespace brownfloc::sim

@@ -1,0 +1,16 @@
+#pragma once
+// Number formatting for the text reports (private to sim/).
+#include <string>
+
+namespace brownfloc::sim {
+
+// Fixed-point with `decimals` digits after the point.
+[[nodiscard]] std::string format_fixed(double value, int decimals);
+// Shortest round-trip form (as in JSON).
+[[nodiscard]] std::string format_general(double value);
+// `significant` significant digits, scientific notation when large or small ("4.9e+08").
+[[nodiscard]] std::string format_significant(double value, int significant);
+// A duration in s with a readable unit beside it: "3.2e+05 s (3.7 days)".
+[[nodiscard]] std::string format_duration(double seconds);
+
+}  // namespace brownfloc::sim

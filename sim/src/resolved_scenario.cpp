@@ -1,0 +1,145 @@
+// The resolved scenario: every value a run used, defaults included, as TOML that
+// parse_scenario reads back to an equal Scenario (numbers are written as the shortest text
+// that reads back bit for bit). Runs store it as scenario.toml so that they can be repeated.
+#include <cstdint>
+#include <optional>
+#include <string>
+
+#include "scenario_schema.hpp"
+#include "scenario_text.hpp"
+#include "sim/scenario.hpp"
+
+namespace brownfloc::sim {
+namespace {
+
+using detail::number_text;
+using detail::toml_string_literal;
+
+class TomlWriter {
+public:
+    void comment(const std::string& text) {
+        // A comment runs to the end of the line and may not hold control characters.
+        std::string safe;
+        for (const char c : text) safe += (static_cast<unsigned char>(c) < 0x20 || c == 0x7F) ? '?' : c;
+        out_ += "# " + safe + "\n";
+    }
+    void section(const std::string& header) { out_ += (out_.empty() ? "" : "\n") + header + "\n"; }
+    void number(const char* key, double v) { line(key, number_text(v)); }
+    void number(const char* key, const std::optional<double>& v) {
+        if (v) number(key, *v);
+    }
+    void integer(const char* key, std::int64_t v) { line(key, std::to_string(v)); }
+    void integer(const char* key, const std::optional<std::int64_t>& v) {
+        if (v) integer(key, *v);
+    }
+    void text(const char* key, const std::string& v) { line(key, toml_string_literal(v)); }
+    void text(const char* key, const std::optional<std::string>& v) {
+        if (v) text(key, *v);
+    }
+    void boolean(const char* key, bool v) { line(key, v ? "true" : "false"); }
+    void line(const char* key, const std::string& value_toml, const std::string& note = {}) {
+        out_ += std::string(key) + " = " + value_toml + (note.empty() ? "" : "  # " + note) + "\n";
+    }
+    [[nodiscard]] const std::string& str() const { return out_; }
+
+private:
+    std::string out_;
+};
+
+void write_species(TomlWriter& w, const Scenario& s) {
+    // [particle] is the one-species shorthand; keep the form the user wrote.
+    const bool shorthand = s.from_particle_table && s.species.size() == 1;
+    for (const SpeciesSpec& sp : s.species) {
+        w.section(shorthand ? "[particle]" : "[[species]]");
+        w.text("name", sp.name);
+        w.number("radius_nm", sp.radius_nm);
+        w.number("hamaker_J", sp.hamaker_J);
+        w.number("surface_potential_mV", sp.surface_potential_mV);
+        w.number("radius_spread", sp.radius_spread);
+        if (!shorthand) w.number("number_fraction", sp.number_fraction);
+    }
+}
+
+void write_conditions(TomlWriter& w, const Scenario& s) {
+    if (s.volume_fraction || s.number_density_per_m3) {
+        w.section("[suspension]");
+        w.number("volume_fraction", s.volume_fraction);
+        w.number("number_density_per_m3", s.number_density_per_m3);
+    }
+    w.section("[medium]");
+    w.line("temperature_K", number_text(s.temperature_K),
+           detail::bound_text(s.temperature_K - detail::celsius_offset_K) + " degC");
+    w.number("viscosity_mPa_s", s.viscosity_mPa_s);
+    w.number("relative_permittivity", s.relative_permittivity);
+    if (!s.viscosity_mPa_s || !s.relative_permittivity)
+        w.comment("viscosity and permittivity not given are those of water at this temperature");
+
+    w.section("[electrolyte]");
+    if (s.salt) {
+        w.text("salt", *s.salt);
+        w.number("concentration_mM", s.salt_concentration_mM);
+    } else {
+        std::string ions = "[";
+        for (std::size_t i = 0; i < s.ions.size(); ++i)
+            ions += std::string(i ? ", " : "") + "{ valence = " + std::to_string(s.ions[i].valence) +
+                    ", concentration_mM = " + number_text(s.ions[i].concentration_mM) + " }";
+        w.line("ions", ions + "]");
+    }
+    w.text("titrant", s.titrant);
+}
+
+void write_settings(TomlWriter& w, const Scenario& s) {
+    w.section("[interaction]");
+    w.text("double_layer", std::string(double_layer_name(s.double_layer)));
+    w.boolean("retarded_vdw", s.retarded_vdw);
+    w.number("min_gap_nm", s.min_gap_nm);
+
+    const RunSettings& r = s.run;
+    w.section("[run]");
+    w.integer("particles", r.particles);
+    w.integer("seed", static_cast<std::int64_t>(r.seed));
+    w.number("end_time_s", r.end_time_s);
+    w.number("end_half_lives", r.end_half_lives);
+    w.integer("steps", r.steps);
+    w.text("aggregation", r.aggregation);
+    w.text("cluster_mobility", r.cluster_mobility);
+    w.number("capture_gap_nm", r.capture_gap_nm);
+    w.number("cluster_gap_nm", r.cluster_gap_nm);
+    w.number("time_step_s", r.time_step_s);
+    w.number("max_time_step_s", r.max_time_step_s);
+    w.integer("max_steps", r.max_steps);
+
+    const OutputSettings& o = s.output;
+    if (o.output_interval_s || o.output_spacing || o.snapshot_interval_s || o.snapshots ||
+        o.checkpoint_interval_wall_s) {
+        w.section("[output]");
+        w.number("output_interval_s", o.output_interval_s);
+        w.text("output_spacing", o.output_spacing);
+        w.number("snapshot_interval_s", o.snapshot_interval_s);
+        w.integer("snapshots", o.snapshots);
+        w.number("checkpoint_interval_wall_s", o.checkpoint_interval_wall_s);
+    }
+}
+
+}  // namespace
+
+std::string resolved_scenario_toml(const Scenario& scenario) {
+    TomlWriter w;
+    w.comment("Resolved scenario: every value used, defaults included. Read from " + scenario.source);
+    for (const std::string& d : scenario.defaults_applied) w.comment("default: " + d);
+    write_species(w, scenario);
+    write_conditions(w, scenario);
+    write_settings(w, scenario);
+    return w.str();
+}
+
+const char* double_layer_name(potentials::DoubleLayerModel model) {
+    switch (model) {
+        case potentials::DoubleLayerModel::linear_superposition: return "linear-superposition";
+        case potentials::DoubleLayerModel::constant_potential: return "constant-potential";
+        case potentials::DoubleLayerModel::constant_charge: return "constant-charge";
+    }
+    return "unknown";  // unreachable: every enumerator is handled above
+}
+
+}  // namespace brownfloc::sim

@@ -1,0 +1,65 @@
+#!/usr/bin/env python3
+"""End-to-end check of `brownfloc dlvo|ccc --json` on one scenario: the output is one JSON
+document holding every key the project's INTERFACES promise, numbers are finite, and a null
+always comes with a `<key>_note`.
+
+Usage: check_json_keys.py dlvo|ccc BROWNFLOC_EXE SCENARIO [--set ...]
+"""
+import json
+import math
+import subprocess
+import sys
+
+DLVO_PAIR_KEYS = ["kappa_a", "barrier_kT", "barrier_gap_nm", "barrier_at_min_gap", "local_maximum_kT",
+                  "primary_minimum_kT", "secondary_minimum_kT", "secondary_minimum_gap_nm",
+                  "stability_ratio", "stability_ratio_hydrodynamic", "stability_ratio_experimental",
+                  "log10_stability_ratio", "log10_stability_ratio_hydrodynamic",
+                  "log10_stability_ratio_experimental", "fast_rate_m3_per_s", "half_life_fast_s",
+                  "half_life_s", "half_life_hydrodynamic_s", "warnings"]
+DLVO_TOP_KEYS = ["ionic_strength_mM", "debye_length_nm", "pairs", "warnings", "caution", "defaults_applied"]
+CCC_KEYS = ["ccc_mM", "ccc_definition", "ccc_by_valence_mM", "schulze_hardy_exponent", "ccc_kinetic_mM",
+            "dlog10W_dlog10c", "warnings", "caution"]
+
+
+def check_values(node, path, problems, noted_by_parent=False):
+    if isinstance(node, dict):
+        for key, value in node.items():
+            if value is None and f"{key}_note" not in node and not noted_by_parent:
+                problems.append(f"{path}{key} is null without {key}_note")
+            check_values(value, f"{path}{key}.", problems, f"{key}_note" in node)
+    elif isinstance(node, list):
+        for i, value in enumerate(node):
+            check_values(value, f"{path}{i}.", problems)
+    elif isinstance(node, float) and not math.isfinite(node):
+        problems.append(f"{path} is not finite")
+
+
+def main():
+    command, exe, scenario, extra = sys.argv[1], sys.argv[2], sys.argv[3], sys.argv[4:]
+    run = subprocess.run([exe, command, scenario, "--json", *extra], capture_output=True, text=True)
+    if run.returncode != 0:
+        print(f"exit {run.returncode}: {run.stderr}")
+        return 1
+    doc = json.loads(run.stdout)  # raises on anything but exactly one JSON document
+    problems = []
+    if command == "dlvo":
+        problems += [f"missing top-level {k}" for k in DLVO_TOP_KEYS if k not in doc]
+        for i, pair in enumerate(doc.get("pairs", [])):
+            problems += [f"pairs.{i}: missing {k}" for k in DLVO_PAIR_KEYS + ["species"] if k not in pair]
+        if len(doc.get("pairs", [])) == 1:
+            problems += [f"one species: missing top-level {k}" for k in DLVO_PAIR_KEYS if k not in doc]
+    else:
+        problems += [f"missing {k}" for k in CCC_KEYS if k not in doc]
+        if set(doc.get("ccc_by_valence_mM", {})) != {"1", "2", "3"}:
+            problems.append("ccc_by_valence_mM must have keys 1, 2, 3")
+    if "not a substitute for real stability testing" not in doc.get("caution", ""):
+        problems.append("the caution is missing")
+    check_values(doc, "", problems)
+    for p in problems:
+        print("FAIL", p)
+    print(f"{command} {scenario}: {'ok' if not problems else f'{len(problems)} problems'}")
+    return 1 if problems else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,445 @@
+// Scenario files: parsing, defaults, --set overrides, alternatives, the resolved scenario and
+// the wording of every kind of input error (shared/INTERFACES.md, "Scenario file").
+#include <catch2/catch.hpp>
+
+#include <algorithm>
+#include <filesystem>
+#include <fstream>
+#include <string>
+#include <vector>
+
+#include "potentials/input_error.hpp"
+#include "sim/scenario.hpp"
+
+using brownfloc::InputError;
+using brownfloc::sim::parse_scenario;
+using brownfloc::sim::Scenario;
+using Catch::Matchers::Contains;
+using Catch::Matchers::StartsWith;
+
+namespace {
+
+// Lines 1-7; tests append sections below, starting at line 8.
+const std::string minimal = R"([particle]
+radius_nm = 100
+hamaker_J = 1e-20
+surface_potential_mV = -30
+[electrolyte]
+salt = "NaCl"
+concentration_mM = 10
+)";
+
+const std::string species_pair = R"([[species]]
+name = "silica"
+radius_nm = 50
+hamaker_J = 8e-21
+surface_potential_mV = -40
+number_fraction = 0.25
+[[species]]
+radius_nm = 200.5
+hamaker_J = 1.5e-20
+surface_potential_mV = 20
+number_fraction = 0.75
+radius_spread = 0.1
+[electrolyte]
+salt = "CaCl2"
+concentration_mM = 1
+)";
+
+Scenario parse(const std::string& text, const std::vector<std::string>& sets = {}) {
+    return parse_scenario(text, "s.toml", sets);
+}
+
+// The message of the InputError that parsing throws ("" if it does not throw).
+std::string error_of(const std::string& text, const std::vector<std::string>& sets = {}) {
+    try {
+        (void)parse_scenario(text, "s.toml", sets);
+    } catch (const InputError& e) {
+        return e.what();
+    }
+    return "";
+}
+
+bool has_default(const Scenario& s, const std::string& line) {
+    return std::find(s.defaults_applied.begin(), s.defaults_applied.end(), line) != s.defaults_applied.end();
+}
+
+// A scenario parsed back from its resolved TOML, with the fields that legitimately differ
+// (where it was read from, which defaults were filled in) taken from the original.
+Scenario round_trip(const Scenario& s) {
+    Scenario back = parse_scenario(brownfloc::sim::resolved_scenario_toml(s), "resolved.toml");
+    back.source = s.source;
+    back.defaults_applied = s.defaults_applied;
+    return back;
+}
+
+}  // namespace
+
+TEST_CASE("a [particle] scenario gives one species with the values written", "[sim][scenario]") {
+    const Scenario s = parse(minimal);
+    REQUIRE(s.species.size() == 1);
+    CHECK(s.from_particle_table);
+    CHECK(s.species[0].name == "particle");
+    CHECK(s.species[0].radius_nm == 100.0);  // a TOML integer is accepted for a float
+    CHECK(s.species[0].hamaker_J == 1e-20);
+    CHECK(s.species[0].surface_potential_mV == -30.0);
+    CHECK(s.species[0].number_fraction == 1.0);
+    CHECK(s.salt == "NaCl");
+    CHECK(s.salt_concentration_mM == 10.0);
+    CHECK(s.ions.empty());
+    CHECK(s.source == "s.toml");
+}
+
+TEST_CASE("defaults are applied and recorded, explicit values are not", "[sim][scenario]") {
+    const Scenario s = parse(minimal);
+    CHECK(s.temperature_K == 298.15);
+    CHECK(s.min_gap_nm == 0.2);
+    CHECK(s.double_layer == brownfloc::potentials::DoubleLayerModel::linear_superposition);
+    CHECK_FALSE(s.retarded_vdw);
+    CHECK(s.species[0].radius_spread == 0.0);
+    CHECK(s.run.seed == 1);
+    CHECK(s.run.aggregation == "irreversible");
+    CHECK(s.run.cluster_mobility == "hydrodynamic-radius");
+    CHECK_FALSE(s.viscosity_mPa_s);
+    CHECK_FALSE(s.volume_fraction);
+    CHECK(has_default(s, "[interaction] min_gap_nm = 0.2"));
+    CHECK(has_default(s, "[interaction] double_layer = \"linear-superposition\""));
+    CHECK(has_default(s, "[interaction] retarded_vdw = false"));
+    CHECK(has_default(s, "[particle] radius_spread = 0.0"));
+    CHECK(has_default(s, "[medium] temperature_C = 25.0"));
+    CHECK(has_default(s, "[run] seed = 1"));
+
+    const Scenario t = parse(minimal + "[interaction]\nmin_gap_nm = 0.5\n[run]\nseed = 7\n");
+    CHECK(t.min_gap_nm == 0.5);
+    CHECK(t.run.seed == 7);
+    CHECK_FALSE(has_default(t, "[interaction] min_gap_nm = 0.2"));
+    CHECK_FALSE(has_default(t, "[run] seed = 1"));
+}
+
+TEST_CASE("[[species]] tables are read in order with default names", "[sim][scenario]") {
+    const Scenario s = parse(species_pair);
+    REQUIRE(s.species.size() == 2);
+    CHECK_FALSE(s.from_particle_table);
+    CHECK(s.species[0].name == "silica");
+    CHECK(s.species[1].name == "species 2");
+    CHECK(s.species[0].number_fraction == 0.25);
+    CHECK(s.species[1].radius_nm == 200.5);
+    CHECK(s.species[1].radius_spread == 0.1);
+    CHECK(has_default(s, "[species.1] radius_spread = 0.0"));
+}
+
+TEST_CASE("every section and key of the schema is read", "[sim][scenario]") {
+    const Scenario s = parse(minimal + R"([suspension]
+number_density_per_m3 = 1e18
+[medium]
+temperature_K = 310
+[interaction]
+double_layer = "constant-charge"
+retarded_vdw = true
+min_gap_nm = 0.3
+[run]
+particles = 1000
+seed = 42
+end_half_lives = 2.5
+aggregation = "reversible"
+cluster_mobility = "free-draining"
+capture_gap_nm = 1
+cluster_gap_nm = 0.5
+time_step_s = 1e-9
+max_time_step_s = 1e-6
+max_steps = 100000
+[output]
+output_interval_s = 0.1
+output_spacing = "log"
+snapshots = 10
+checkpoint_interval_wall_s = 600
+)");
+    CHECK(s.number_density_per_m3 == 1e18);
+    CHECK(s.temperature_K == 310.0);
+    CHECK(s.double_layer == brownfloc::potentials::DoubleLayerModel::constant_charge);
+    CHECK(s.retarded_vdw);
+    CHECK(s.run.particles == 1000);
+    CHECK(s.run.seed == 42);
+    CHECK(s.run.end_half_lives == 2.5);
+    CHECK(s.run.aggregation == "reversible");
+    CHECK(s.run.cluster_mobility == "free-draining");
+    CHECK(s.run.max_steps == 100000);
+    CHECK(s.output.output_spacing == "log");
+    CHECK(s.output.snapshots == 10);
+    CHECK(s.output.checkpoint_interval_wall_s == 600.0);
+}
+
+TEST_CASE("temperature_C is converted to kelvin", "[sim][scenario]") {
+    // 273.15 K offset: exact by definition of the Celsius scale; the sum is one rounding.
+    CHECK(parse(minimal + "[medium]\ntemperature_C = 20\n").temperature_K == 20.0 + 273.15);
+    CHECK(parse(minimal + "[medium]\ntemperature_C = 0\n").temperature_K == 273.15);
+}
+
+TEST_CASE("outside liquid water the temperature needs both viscosity and permittivity", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "[medium]\ntemperature_C = 101\n"),
+               StartsWith("s.toml:9: [medium] temperature_C = 101: must be within 0-100 degC") &&
+                   Contains("viscosity_mPa_s and relative_permittivity"));
+    CHECK_THAT(error_of(minimal + "[medium]\ntemperature_K = 270\nviscosity_mPa_s = 2\n"),
+               StartsWith("s.toml:9: [medium] temperature_K = 270: must be within"));
+    CHECK(parse(minimal + "[medium]\ntemperature_K = 400\nviscosity_mPa_s = 0.2\nrelative_permittivity = 55\n")
+              .temperature_K == 400.0);
+    CHECK_THAT(error_of(minimal + "[medium]\ntemperature_K = 0\nviscosity_mPa_s = 0.2\nrelative_permittivity = 55\n"),
+               StartsWith("s.toml:9: [medium] temperature_K = 0: must be > 0"));
+}
+
+TEST_CASE("an ion list is read and must be electroneutral with a non-zero ionic strength", "[sim][scenario]") {
+    const std::string particle = minimal.substr(0, minimal.find("[electrolyte]"));
+    const Scenario s = parse(particle + R"([electrolyte]
+ions = [{ valence = 2, concentration_mM = 1 }, { valence = -1, concentration_mM = 2 }]
+titrant = "LaCl3"
+)");
+    REQUIRE(s.ions.size() == 2);
+    CHECK(s.ions[0].valence == 2);
+    CHECK(s.ions[1].concentration_mM == 2.0);
+    CHECK_FALSE(s.salt);
+    CHECK(s.titrant == "LaCl3");
+
+    CHECK_THAT(error_of(particle + "[electrolyte]\nions = [{ valence = 2, concentration_mM = 1 }, "
+                                   "{ valence = -1, concentration_mM = 1 }]\n"),
+               StartsWith("s.toml:6: [electrolyte] ions = [{ valence = 2, concentration_mM = 1 }") &&
+                   Contains("not electroneutral") && Contains("net charge sum(z c) is 1 mM"));
+    CHECK_THAT(error_of(particle + "[electrolyte]\nions = [{ valence = 1, concentration_mM = 0 }, "
+                                   "{ valence = -1, concentration_mM = 0 }]\n"),
+               Contains("zero ionic strength: the Debye length is infinite; give a salt concentration > 0"));
+    CHECK_THAT(error_of(particle + "[electrolyte]\nions = [{ valence = 0, concentration_mM = 1 }]\n"),
+               StartsWith("s.toml:6: [electrolyte] ions.1.valence = 0: must be a non-zero integer >= -4 and <= 4"));
+    CHECK_THAT(error_of(particle + "[electrolyte]\nions = [{ valence = 1, concentration_mM = 1 }, { valence = -1 }]\n"),
+               StartsWith("s.toml:6: [electrolyte] ions.2.concentration_mM: missing"));
+    CHECK_THAT(error_of(particle + "[electrolyte]\nions = [{ valence = 1, concentration_mM = 1 }]\nconcentration_mM = 1\n"),
+               StartsWith("s.toml:7: [electrolyte] concentration_mM = 1: goes only with salt"));
+}
+
+TEST_CASE("salt errors carry the file, line and formula before the formula parser's reason", "[sim][scenario]") {
+    const std::string text = minimal.substr(0, minimal.find("salt =")) + "salt = \"XyZ\"\nconcentration_mM = 1\n";
+    CHECK_THAT(error_of(text), StartsWith("s.toml:6: [electrolyte] salt = \"XyZ\": ") && Contains("XyZ"));
+    CHECK_THAT(error_of(minimal + "titrant = 5\n"), StartsWith("s.toml:8: [electrolyte] titrant = 5: must be a salt formula"));
+    CHECK_THAT(error_of(minimal, {"electrolyte.concentration_mM=0"}),
+               Contains("concentration_mM = 0: zero ionic strength: the Debye length is infinite"));
+    CHECK_THAT(error_of(minimal, {"electrolyte.concentration_mM=5001"}), Contains("must be >= 0 and <= 5000"));
+}
+
+TEST_CASE("values out of range name file, line, section, key and value", "[sim][scenario]") {
+    const auto with = [](const std::string& line2) {
+        return "[particle]\n" + line2 + "\nhamaker_J = 1e-20\nsurface_potential_mV = -30\n"
+                                          "[electrolyte]\nsalt = \"NaCl\"\nconcentration_mM = 10\n";
+    };
+    CHECK(error_of(with("radius_nm = -5")) == "s.toml:2: [particle] radius_nm = -5: must be > 0 and < 100000");
+    CHECK(error_of(with("radius_nm = nan")) == "s.toml:2: [particle] radius_nm = nan: must be a finite number");
+    CHECK(error_of(with("radius_nm = -inf")) == "s.toml:2: [particle] radius_nm = -inf: must be a finite number");
+    CHECK(error_of(with("radius_nm = \"5\"")) == "s.toml:2: [particle] radius_nm = \"5\": must be a number, not a string");
+    CHECK(error_of(with("radius_nm = [5]")) == "s.toml:2: [particle] radius_nm = [5]: must be a number, not an array");
+    CHECK_THAT(error_of(minimal + "[run]\nparticles = 10.0\n"),
+               StartsWith("s.toml:9: [run] particles = 10.0: must be an integer, not a float"));
+    CHECK_THAT(error_of(minimal + "[interaction]\nretarded_vdw = 1\n"),
+               StartsWith("s.toml:9: [interaction] retarded_vdw = 1: must be true or false, not an integer"));
+    CHECK_THAT(error_of(minimal + "[interaction]\ndouble_layer = \"constant potential\"\n"),
+               StartsWith("s.toml:9: [interaction] double_layer = \"constant potential\": must be one of") &&
+                   Contains("did you mean \"constant-potential\"?"));
+    CHECK_THAT(error_of(minimal + "[suspension]\nvolume_fraction = 0.7\n"),
+               StartsWith("s.toml:9: [suspension] volume_fraction = 0.7: must be > 0 and < 0.64"));
+    CHECK_THAT(error_of(minimal + "[output]\nsnapshots = 1\n"), Contains("[output] snapshots = 1: must be an integer >= 2"));
+}
+
+TEST_CASE("unknown keys and sections are errors with a suggestion", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "[run]\nsede = 3\n"),
+               StartsWith("s.toml:9: [run] sede = 3: unknown key; did you mean 'seed'?"));
+    CHECK_THAT(error_of(minimal + "[interaction]\nseed = 3\n"), Contains("seed belongs in [run]"));
+    CHECK_THAT(error_of(minimal + "[storage]\npath = \"x\"\n"),
+               StartsWith("s.toml:8: [storage]: unknown section") && Contains("known sections: particle, species"));
+    CHECK_THAT(error_of(minimal + "[calibration]\n"), StartsWith("s.toml:8: [calibration]: unknown section"));
+    CHECK_THAT(error_of(minimal + "[partcle]\n"), Contains("did you mean [particle]?"));
+}
+
+TEST_CASE("two alternatives in a file is an error naming both keys and lines", "[sim][scenario]") {
+    CHECK(error_of(minimal + "[medium]\ntemperature_C = 20\ntemperature_K = 300\n") ==
+          "s.toml:10: [medium] temperature_K = 300: conflicts with temperature_C = 20 at s.toml:9; "
+          "give only one of temperature_C | temperature_K");
+    CHECK_THAT(error_of(minimal + "[run]\nsteps = 10\nend_time_s = 1\n"),
+               Contains("end_time_s = 1: conflicts with steps = 10 at s.toml:9"));
+    CHECK_THAT(error_of(minimal + "ions = [{ valence = 1, concentration_mM = 1 }, { valence = -1, concentration_mM = 1 }]\n"),
+               StartsWith("s.toml:8: [electrolyte] ions = ") && Contains("conflicts with salt = \"NaCl\" at s.toml:6"));
+}
+
+TEST_CASE("missing required keys and sections are named", "[sim][scenario]") {
+    CHECK(error_of("[particle]\nradius_nm = 1\nsurface_potential_mV = 1\n") ==
+          "s.toml:1: [particle] hamaker_J: missing (required)");
+    CHECK_THAT(error_of("[electrolyte]\nsalt = \"NaCl\"\nconcentration_mM = 1\n"),
+               Contains("a scenario needs [particle] or [[species]]"));
+    CHECK_THAT(error_of(minimal.substr(0, minimal.find("[electrolyte]"))), Contains("[electrolyte]: missing"));
+    CHECK_THAT(error_of(minimal.substr(0, minimal.find("concentration_mM"))),
+               StartsWith("s.toml:5: [electrolyte] concentration_mM: missing (required with salt)"));
+    CHECK_THAT(error_of(species_pair + "[[species]]\nradius_nm = 1\nhamaker_J = 0\nsurface_potential_mV = 0\n"),
+               StartsWith("s.toml:16: [species.3] number_fraction: missing (required when there is more than one species)"));
+}
+
+TEST_CASE("[particle] and [[species]] together, too many species and bad fractions are errors", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "[[species]]\nradius_nm = 1\nhamaker_J = 0\nsurface_potential_mV = 0\n"),
+               Contains("[[species]] and [particle] (at s.toml:1)"));
+    std::string many = "[electrolyte]\nsalt = \"KCl\"\nconcentration_mM = 1\n";
+    for (int i = 0; i < 17; ++i)
+        many += "[[species]]\nradius_nm = 1\nhamaker_J = 0\nsurface_potential_mV = 0\nnumber_fraction = 0.0625\n";
+    CHECK_THAT(error_of(many), StartsWith("s.toml:84: [species.17]: at most 16 species"));
+    std::string bad = species_pair;
+    bad.replace(bad.find("0.75"), 4, "0.7");
+    CHECK_THAT(error_of(bad), StartsWith("s.toml:1: [species] number_fraction: ") &&
+                                  Contains("0.25 + 0.7 sum to 0.95") && Contains("must sum to 1"));
+    CHECK_THAT(error_of(species_pair, {"species.2.radius_nm=0"}),
+               StartsWith("--set species.2.radius_nm=0: [species.2] radius_nm = 0: must be > 0"));
+}
+
+TEST_CASE("text that toml++ must not see is refused with line and column", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "# caf\xFF\n"),
+               StartsWith("s.toml:8:6: byte 0xFF is not valid UTF-8"));
+    CHECK_THAT(error_of(minimal + "[run]\nseed = 1 \xEF\xBB\x9F\n"),  // U+FEDF after a value
+               StartsWith("s.toml:9:10: character U+FEDF is not allowed: toml++ 3.3.0"));
+    CHECK_THAT(error_of(minimal + "# \xC0\x80 overlong NUL\n"), StartsWith("s.toml:8:3: byte 0xC0 is not valid UTF-8"));
+    CHECK_THAT(error_of(minimal + "# \xED\xA0\x80 surrogate\n"), StartsWith("s.toml:8:3: byte 0xED"));
+    // A leading byte-order mark is harmless and dropped; other UTF-8 is fine.
+    CHECK(parse("\xEF\xBB\xBF" + minimal + "# caf\xC3\xA9\n").species.size() == 1);
+}
+
+TEST_CASE("TOML syntax errors name the file and line", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "[run]\nseed = 1 x\n"), StartsWith("s.toml:9: "));
+    CHECK_THAT(error_of(minimal + "[particle]\n"), StartsWith("s.toml:8: "));
+}
+
+TEST_CASE("strings quoted in messages are escaped and cut at 80 characters", "[sim][scenario]") {
+    CHECK_THAT(error_of(minimal + "[interaction]\ndouble_layer = \"caf\xC3\xA9\\t\\\"\"\n"),
+               Contains("double_layer = \"caf\\xC3\\xA9\\x09\\\"\": must be one of"));
+    const std::string long_name(100, 'a');
+    const std::string message = error_of(minimal + "[run]\naggregation = \"" + long_name + "\"\n");
+    CHECK_THAT(message, Contains("aggregation = \"" + std::string(80, 'a') + "\"...: must be one of"));
+}
+
+TEST_CASE("a --set override changes a value before validation", "[sim][scenario]") {
+    const Scenario s = parse(minimal, {"particle.radius_nm=250", "interaction.double_layer=constant-potential",
+                                        "electrolyte.salt=MgSO4", "particle.name=latex A", "run.seed = 9"});
+    CHECK(s.species[0].radius_nm == 250.0);
+    CHECK(s.species[0].name == "latex A");  // not TOML: taken as a string
+    CHECK(s.double_layer == brownfloc::potentials::DoubleLayerModel::constant_potential);
+    CHECK(s.salt == "MgSO4");
+    CHECK(s.run.seed == 9);
+    CHECK(parse(minimal, {"particle.name=2"}).species[0].name == "2");  // string keys take the text
+    CHECK(parse(minimal, {"suspension.volume_fraction=0.02"}).volume_fraction == 0.02);  // new section
+    CHECK(parse(species_pair, {"species.2.number_fraction=0.5", "species.1.number_fraction=0.5"}).species[1].number_fraction ==
+          0.5);
+}
+
+TEST_CASE("a --set of one alternative replaces the others", "[sim][scenario]") {
+    const std::string text = minimal + "[medium]\ntemperature_C = 20\n[run]\nsteps = 5\n[output]\nsnapshots = 4\n";
+    const Scenario s = parse(text, {"medium.temperature_K=300", "run.end_time_s=2", "output.snapshot_interval_s=0.5"});
+    CHECK(s.temperature_K == 300.0);
+    CHECK(s.run.end_time_s == 2.0);
+    CHECK_FALSE(s.run.steps);
+    CHECK_FALSE(s.output.snapshots);
+    CHECK(s.output.snapshot_interval_s == 0.5);
+    CHECK(parse(minimal + "[suspension]\nvolume_fraction = 0.1\n", {"suspension.number_density_per_m3=1e17"})
+              .volume_fraction == std::nullopt);
+
+    const Scenario ions = parse(minimal, {"electrolyte.ions=[{valence=1,concentration_mM=3},{valence=-1,concentration_mM=3}]"});
+    CHECK_FALSE(ions.salt);  // salt and its concentration_mM both go
+    CHECK(ions.ions.size() == 2);
+    const Scenario salt = parse(minimal, {"electrolyte.ions=[{valence=1,concentration_mM=3},{valence=-1,concentration_mM=3}]",
+                                 "electrolyte.salt=KCl", "electrolyte.concentration_mM=4"});
+    CHECK(salt.salt == "KCl");
+    CHECK(salt.ions.empty());
+    CHECK(salt.salt_concentration_mM == 4.0);
+}
+
+TEST_CASE("errors from --set say which --set argument is wrong", "[sim][scenario]") {
+    CHECK(error_of(minimal, {"particle.radius_nm=-5"}) ==
+          "--set particle.radius_nm=-5: [particle] radius_nm = -5: must be > 0 and < 100000");
+    CHECK_THAT(error_of(minimal, {"particle.radius=5"}),
+               StartsWith("--set particle.radius=5: [particle] radius: unknown key; did you mean 'radius_nm'?"));
+    CHECK_THAT(error_of(minimal, {"partcle.radius_nm=5"}),
+               StartsWith("--set partcle.radius_nm=5: unknown section [partcle]; did you mean [particle]?"));
+    CHECK_THAT(error_of(minimal, {"particle.radius_nm"}), StartsWith("--set particle.radius_nm: expected section.key=value"));
+    CHECK_THAT(error_of(minimal, {"species.1.radius_nm=5"}), Contains("this scenario uses [particle]"));
+    CHECK_THAT(error_of(species_pair, {"particle.radius_nm=5"}), Contains("this scenario uses [[species]]"));
+    CHECK_THAT(error_of(species_pair, {"species.3.radius_nm=5"}), Contains("N from 1 to 2"));
+    CHECK_THAT(error_of(species_pair, {"species.0.radius_nm=5"}), Contains("N from 1 to 2"));
+    CHECK_THAT(error_of(minimal, {"particle.name=a\xEF\xBB\xBF"}), StartsWith("--set particle.name=a\\xEF\\xBB\\xBF: column 16: character U+FEFF"));
+    CHECK_THAT(error_of(minimal, {"particle.radius_nm=5\n[run]"}), Contains("must be on one line"));
+    CHECK_THAT(error_of(minimal, {"electrolyte.concentration_mM=\"10\""}),
+               StartsWith("--set electrolyte.concentration_mM=\\\"10\\\": [electrolyte] concentration_mM = \"10\": "
+                          "must be a number, not a string"));
+}
+
+TEST_CASE("the resolved scenario parses back to an equal scenario", "[sim][scenario]") {
+    SECTION("minimal [particle] file with defaults") {
+        const Scenario s = parse(minimal);
+        CHECK(round_trip(s) == s);
+        const std::string text = brownfloc::sim::resolved_scenario_toml(s);
+        CHECK_THAT(text, Contains("[particle]") && Contains("min_gap_nm = 0.2") && Contains("seed = 1") &&
+                             Contains("double_layer = \"linear-superposition\""));
+    }
+    SECTION("species, ions and every optional key, with numbers that need 17 digits") {
+        const Scenario s = parse(species_pair.substr(0, species_pair.find("[electrolyte]")) + R"(
+[suspension]
+volume_fraction = 0.1234567890123456789
+[medium]
+temperature_C = 21.3
+viscosity_mPa_s = 0.3333333333333333
+relative_permittivity = 78.54
+[electrolyte]
+ions = [{ valence = 3, concentration_mM = 0.1 }, { valence = -1, concentration_mM = 0.30000000000000004 }]
+titrant = "AlCl3"
+[interaction]
+double_layer = "constant-potential"
+retarded_vdw = true
+min_gap_nm = 1e-3
+[run]
+particles = 4096
+seed = 9007199254740993
+end_time_s = 1e-3
+aggregation = "reversible"
+capture_gap_nm = 0.7
+cluster_gap_nm = 0.35
+time_step_s = 2.5e-10
+max_time_step_s = 1e-7
+max_steps = 10000000
+[output]
+output_interval_s = 1e-4
+output_spacing = "linear"
+snapshot_interval_s = 0.01
+checkpoint_interval_wall_s = 300
+)",
+                                 {"species.1.name=quote \" and back\\slash caf\xC3\xA9"});
+        CHECK(round_trip(s) == s);
+        CHECK(round_trip(s).species[0].name == "quote \" and back\\slash caf\xC3\xA9");
+        CHECK(round_trip(s).run.seed == 9007199254740993u);  // integers stay exact beyond 2^53
+    }
+    SECTION("after --set replaced the salt by ions") {
+        const Scenario s = parse(minimal, {"electrolyte.ions=[{valence=2,concentration_mM=1},{valence=-2,concentration_mM=1}]"});
+        CHECK(round_trip(s) == s);
+    }
+}
+
+TEST_CASE("double-layer models have the names used in scenario files", "[sim][scenario]") {
+    using brownfloc::potentials::DoubleLayerModel;
+    CHECK(std::string(brownfloc::sim::double_layer_name(DoubleLayerModel::linear_superposition)) == "linear-superposition");
+    CHECK(std::string(brownfloc::sim::double_layer_name(DoubleLayerModel::constant_potential)) == "constant-potential");
+    CHECK(std::string(brownfloc::sim::double_layer_name(DoubleLayerModel::constant_charge)) == "constant-charge");
+}
+
+TEST_CASE("load_scenario reads a file and names it when it cannot", "[sim][scenario]") {
+    const auto dir = std::filesystem::temp_directory_path() / "brownfloc-scenario-test";
+    std::filesystem::create_directories(dir);
+    const std::string path = (dir / "ok.toml").string();
+    std::ofstream(path) << minimal;
+    const Scenario s = brownfloc::sim::load_scenario(path, {"particle.radius_nm=7"});
+    CHECK(s.source == path);
+    CHECK(s.species[0].radius_nm == 7.0);
+
+    const std::string missing = (dir / "missing.toml").string();
+    CHECK_THROWS_WITH(brownfloc::sim::load_scenario(missing), StartsWith(missing + ": cannot read the scenario file"));
+    CHECK_THROWS_WITH(brownfloc::sim::load_scenario(dir.string()), Contains("it is a directory"));
+    std::ofstream(path) << minimal << "[run]\nseed = -1\n";
+    CHECK_THROWS_WITH(brownfloc::sim::load_scenario(path), StartsWith(path + ":9: [run] seed = -1"));
+    std::filesystem::remove_all(dir);
+}
