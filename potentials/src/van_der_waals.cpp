@@ -26,8 +26,14 @@ EnergySlope vdw_hamaker_full(double hamaker_J, double a1_m, double a2_m, double 
     } else {
         g = 0.5 * x * q / p + 0.5 * x + std::log(p / q);
     }
-    const double slope = hamaker_J / 6.0 * x * x * x * r * q / (p * p);
-    return {-hamaker_J / 6.0 * g, slope};
+    return {-hamaker_J / 6.0 * g, vdw_hamaker_full_slope(hamaker_J, a1_m, a2_m, h_m)};
+}
+
+double vdw_hamaker_full_slope(double hamaker_J, double a1_m, double a2_m, double h_m) {
+    const double s = a1_m + a2_m, d = a1_m - a2_m, r = s + h_m;
+    const double q = r * r - d * d, p = h_m * (2.0 * s + h_m);
+    const double x = 4.0 * a1_m * a2_m / q;
+    return hamaker_J / 6.0 * x * x * x * r * q / (p * p);
 }
 
 EnergySlope vdw_derjaguin(double hamaker_J, double a1_m, double a2_m, double h_m) {
@@ -36,16 +42,20 @@ EnergySlope vdw_derjaguin(double hamaker_J, double a1_m, double a2_m, double h_m
     return {u, -u / h_m};
 }
 
-EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m) {
-    // Gregory (1981), eq. 15 (sphere-sphere via Derjaguin): U = -(A R/6h) f(h),
+EnergySlope gregory_kernel(double h_m) {
     // f = 1 - (b h/lambda) ln(1 + lambda/(b h)); f' = -(b/lambda) ln(1 + lambda/(bh)) + b/(bh + lambda).
-    const double reduced = a1_m * a2_m / (a1_m + a2_m);
     const double bh = gregory_b * h_m;
     const double log_term = std::log1p(gregory_lambda_m / bh);
     const double f = 1.0 - bh / gregory_lambda_m * log_term;
     const double df = -gregory_b / gregory_lambda_m * log_term + gregory_b / (bh + gregory_lambda_m);
-    const double c = -hamaker_J * reduced / 6.0;
-    return {c * f / h_m, c * (df / h_m - f / (h_m * h_m))};
+    return {f / h_m, df / h_m - f / (h_m * h_m)};
+}
+
+EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m) {
+    // Gregory (1981), eq. 15 (sphere-sphere via Derjaguin): U = -(A R/6) f(h)/h, R = a1 a2/(a1+a2).
+    const double factor = -hamaker_J * a1_m * a2_m / (a1_m + a2_m) / 6.0;
+    const EnergySlope k = gregory_kernel(h_m);
+    return {factor * k.energy_J, factor * k.slope_J_per_m};
 }
 
 EnergySlope van_der_waals(VdwForm form, double hamaker_J, double a1_m, double a2_m, double h_m) {

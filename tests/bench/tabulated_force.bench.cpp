@@ -9,6 +9,7 @@
 
 #include "potentials/extrema.hpp"
 #include "potentials/pair_interaction.hpp"
+#include "potentials/radius_free_interaction.hpp"
 #include "potentials/tabulated_interaction.hpp"
 
 using namespace brownfloc::potentials;
@@ -64,5 +65,26 @@ void analytic_force(benchmark::State& state) {
     state.SetItemsProcessed(state.iterations() * static_cast<std::int64_t>(s.gaps.size() / 16));
 }
 BENCHMARK(analytic_force);
+
+// Polydisperse pairs: radius-free kernel tables plus the analytic radius factors and full
+// Hamaker force, for random radius pairs (log-normal, sd 0.3) at the same gaps.
+void radius_free_force_lookup(benchmark::State& state) {
+    const Setup& s = setup();
+    const Medium water = water_at(298.15);
+    const RadiusFreeInteraction table(VdwForm::hamaker_full, DoubleLayerModel::linear_superposition, water,
+                                      Electrolyte::from_salt("NaCl", 50), s.table.start_gap_m(), s.table.end_gap_m());
+    std::mt19937_64 rng(11);  // fixed seed
+    std::lognormal_distribution<double> radius(std::log(100e-9), 0.3);
+    const double psi = table.double_layer_potential_V(-0.035);
+    std::vector<PairSurfaces> pairs(1024);
+    for (auto& p : pairs) p = {radius(rng), radius(rng), 1e-20, psi, psi};
+    for (auto _ : state) {
+        double sum = 0;
+        for (std::size_t i = 0; i < s.gaps.size(); ++i) sum += table.force_N(s.gaps[i], pairs[i & 1023]);
+        benchmark::DoNotOptimize(sum);
+    }
+    state.SetItemsProcessed(state.iterations() * static_cast<std::int64_t>(s.gaps.size()));
+}
+BENCHMARK(radius_free_force_lookup);
 
 }  // namespace

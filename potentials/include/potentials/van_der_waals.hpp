@@ -16,6 +16,9 @@ enum class VdwForm {
 // -(16/9) A a1^3 a2^3 / r^6 comes from a series, not from cancelling logarithms.
 [[nodiscard]] EnergySlope vdw_hamaker_full(double hamaker_J, double a1_m, double a2_m, double h_m);
 
+// dU/dh of the full Hamaker form alone (no logarithm): A x^3 r q / (6 p^2), for force loops.
+[[nodiscard]] double vdw_hamaker_full_slope(double hamaker_J, double a1_m, double a2_m, double h_m);
+
 // Derjaguin limit of the above: -A a1 a2 / (6 h (a1 + a2)).
 [[nodiscard]] EnergySlope vdw_derjaguin(double hamaker_J, double a1_m, double a2_m, double h_m);
 
@@ -24,6 +27,10 @@ enum class VdwForm {
 // b = 5.32, lambda = 100 nm (characteristic wavelength of the dispersion interaction).
 // Built on the Derjaguin form: good to about 10 % while h < 0.1 a.
 [[nodiscard]] EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m);
+
+// The radius-free part of Gregory's form: {f(h)/h [1/m], d(f/h)/dh [1/m^2]} in the fields of
+// an EnergySlope, so that U = -(A R / 6) f/h.
+[[nodiscard]] EnergySlope gregory_kernel(double h_m);
 
 inline constexpr double gregory_b = 5.32;
 inline constexpr double gregory_lambda_m = 100e-9;
