@@ -39,6 +39,14 @@ double log_stability_ratio(const PairInteraction& pair, double min_gap_m, bool h
     breaks.push_back(t1);
     for (double g : {ext.maximum_gap_m, ext.secondary_minimum_gap_m})
         if (g > min_gap_m && g < far_gap) breaks.push_back(std::log(g));
+    // Around the maximum (also when it sits at min_gap) the integrand can fall by hundreds
+    // of e-folds within 1e-4 of the gap (potentials of hundreds of mV, micron spheres), where
+    // no Kronrod node of a 0.5-wide interval lands: break points at decades of distance in
+    // ln h, from 1e-12 to 0.1, put nodes on every scale of the peak.
+    if (ext.has_maximum)
+        for (double d = 1e-12; d < 0.2; d *= 10)
+            for (double t : {std::log(ext.maximum_gap_m) - d, std::log(ext.maximum_gap_m) + d})
+                if (t > t0 && t < t1) breaks.push_back(t);
     std::sort(breaks.begin(), breaks.end());
     const auto inner = detail::integrate(near, breaks, 1e-11);
     // Part 2, r = s + far_gap .. inf in w = R_c / r on (0, w_far]: integrand e^{U} beta dw.

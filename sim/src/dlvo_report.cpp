@@ -83,7 +83,7 @@ PairStability analyse_pair(const Scenario& scenario, const Medium& medium, const
 }
 
 std::optional<double> linear_from_log10(double log10_value) {
-    if (log10_value > 300) return std::nullopt;
+    if (!(log10_value <= 300)) return std::nullopt;  // also NaN
     return std::pow(10.0, log10_value);
 }
 
@@ -101,13 +101,15 @@ void add_pair_json(Json& json, const PairStability& p) {
     json.set("secondary_minimum_kT", p.secondary_minimum_kT);
     json.set_number_or_null("secondary_minimum_gap_nm", p.secondary_minimum_gap_nm,
                             "no secondary minimum beyond the maximum");
-    json.set_number_or_null("stability_ratio", linear_from_log10(p.log10_stability_ratio), big);
-    json.set("log10_stability_ratio", p.log10_stability_ratio);
-    json.set_number_or_null("stability_ratio_hydrodynamic", linear_from_log10(p.log10_stability_ratio_hydrodynamic), big);
-    json.set("log10_stability_ratio_hydrodynamic", p.log10_stability_ratio_hydrodynamic);
-    json.set_number_or_null("stability_ratio_experimental",
-                            linear_from_log10(p.log10_stability_ratio_experimental), big);
-    json.set("log10_stability_ratio_experimental", p.log10_stability_ratio_experimental);
+    // A non-finite log10 W would be a quadrature failure (a bug): never print it as a number.
+    const std::string failed = "the Fuchs integral could not be evaluated for these inputs; please report";
+    auto add_ratio = [&](const std::string& key, double log10_value) {
+        json.set_number_or_null(key, linear_from_log10(log10_value), std::isfinite(log10_value) ? big : failed);
+        json.set_number_or_null("log10_" + key, log10_value, failed);
+    };
+    add_ratio("stability_ratio", p.log10_stability_ratio);
+    add_ratio("stability_ratio_hydrodynamic", p.log10_stability_ratio_hydrodynamic);
+    add_ratio("stability_ratio_experimental", p.log10_stability_ratio_experimental);
     json.set("fast_rate_m3_per_s", p.fast_rate_m3_per_s);
     const std::string no_density = "no [suspension] concentration given";
     if (p.half_life_fast_s) {

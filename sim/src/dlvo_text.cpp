@@ -22,6 +22,7 @@ std::string electrolyte_line(const Scenario& s, const DlvoReport& r) {
 }
 
 std::string ratio_line(double log10_value) {
+    if (!std::isfinite(log10_value)) return "not computed (the Fuchs integral failed; please report)";
     if (log10_value > 300) return "10^" + format_fixed(log10_value, 2);
     return format_significant(std::pow(10.0, log10_value), 3) + "  (log10 " + format_fixed(log10_value, 3) + ")";
 }
@@ -55,6 +56,7 @@ void write_pair(std::ostream& out, const PairStability& p, const Scenario& s, bo
     if (p.half_life_fast_s) {
         const double lg = std::log10(*p.half_life_fast_s);
         auto duration = [&](double log10_t) {
+            if (!std::isfinite(log10_t)) return std::string("not computed");
             return log10_t > 300 ? "10^" + format_fixed(log10_t, 1) + " s" : format_duration(std::pow(10.0, log10_t));
         };
         row("half-life, fast (W = 1)", format_duration(*p.half_life_fast_s));

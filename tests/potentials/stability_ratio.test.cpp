@@ -84,6 +84,23 @@ TEST_CASE("barriers of hundreds of kT give finite logarithms", "[potentials][fuc
     CHECK(log_w > 700);  // beyond exp() of a double: must not overflow
 }
 
+TEST_CASE("a barrier of millions of kT at min_gap still gives a bounded, finite ln W", "[potentials][fuchs]") {
+    // 100 um spheres at 500 mV under constant charge in 5 M salt: U falls by ~1e6 kT within
+    // 1e-3 nm of min_gap. W <= e^{U_max} (the integrand never exceeds R_c e^{U_max}/r^2), and
+    // the peak is wider than 1e-30 R_c, so ln W >= U_max - 70.
+    PairModel model{1e-4, 1e-4, 1e-21, 0.5, 0.5};
+    model.double_layer = DoubleLayerModel::constant_charge;
+    const PairInteraction pair(model, water, Electrolyte::from_salt("NaCl", 5000));
+    const double u0 = pair.energy_kT(0.2e-9);
+    REQUIRE(u0 > 1e6);
+    for (bool hydrodynamic : {false, true}) {
+        const double log_w = log_stability_ratio(pair, 0.2e-9, hydrodynamic);
+        CHECK(std::isfinite(log_w));
+        CHECK(log_w <= u0 + (hydrodynamic ? std::log(honig_beta(0.2e-9, 1e-4, 1e-4)) : 0.0));
+        CHECK(log_w >= u0 - 70);
+    }
+}
+
 TEST_CASE("fast coagulation rate of equal spheres does not depend on their radius", "[potentials][kinetics][validation]") {
     // Smoluchowski (1917), Z. Phys. Chem. 92, 129: collision rate constant 8 kT / (3 eta).
     // Tolerance: the result is closed-form, so only rounding error is allowed.
