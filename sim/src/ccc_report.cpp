@@ -138,15 +138,16 @@ void write_ccc_text(std::ostream& out, const CccReport& report, const Scenario& 
         return v ? format_significant(*v, 4) + " mM" : "none (" + note + ")";
     };
     out << "brownfloc ccc: " << scenario.source << "\n\n";
-    out << "Varied salt                 " << report.varied_salt
-        << (scenario.titrant ? " (titrant, added on top of [electrolyte])" : "") << "\n";
+    auto row = [&](const std::string& label, const std::string& value) {
+        out << label << std::string(label.size() < 32 ? 32 - label.size() : 1, ' ') << value << "\n";
+    };
+    row("Varied salt", report.varied_salt + (scenario.titrant ? " (titrant, added on top of [electrolyte])" : ""));
     if (scenario.species.size() > 1)
-        out << "Limiting pair               " << lim.species_i + 1 << "-" << lim.species_j + 1
-            << " (the first to lose its barrier, or one that never has one)\n";
-    out << "CCC, barrier criterion      " << mM(lim.ccc_mM, lim.ccc_note) << "\n";
-    out << "CCC, kinetic (W = 100 tangent) " << mM(lim.ccc_kinetic_mM, lim.kinetic_note) << "\n";
-    if (lim.dlog10w_dlog10c)
-        out << "  slope dlog10W/dlog10c at W = 100: " << format_significant(*lim.dlog10w_dlog10c, 4) << "\n";
+        row("Limiting pair", std::to_string(lim.species_i + 1) + "-" + std::to_string(lim.species_j + 1) +
+                                 " (the first to lose its barrier, or one that never has one)");
+    row("CCC, barrier criterion", mM(lim.ccc_mM, lim.ccc_note));
+    row("CCC, kinetic (W = 100 tangent)", mM(lim.ccc_kinetic_mM, lim.kinetic_note));
+    if (lim.dlog10w_dlog10c) row("  dlog10 W / dlog10 c at W = 100", format_significant(*lim.dlog10w_dlog10c, 4));
     out << "\nSymmetric z:z salts in place of " << report.varied_salt << " (Schulze-Hardy series)\n";
     for (int z = 1; z <= 3; ++z)
         out << "  z = " << z << "   " << mM(report.ccc_by_valence_mM[z - 1], report.by_valence_note[z - 1]) << "\n";
