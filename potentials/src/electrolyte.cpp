@@ -64,7 +64,7 @@ double Electrolyte::ionic_strength_mol_per_m3() const {
 }
 
 double Electrolyte::inverse_debye_length_per_m(const Medium& medium) const {
-    // kappa^2 = 2 N_A e^2 I / (eps kT), I in mol/m^3 (e.g. Russel, Saville & Schowalter 1989, eq. 4.2.10).
+    // kappa^2 = 2 N_A e^2 I / (eps kT), I in mol/m^3 (e.g. Russel, Saville & Schowalter 1989, ch. 4 [memory]).
     using namespace constants;
     const double e2 = elementary_charge_C * elementary_charge_C;
     return std::sqrt(2.0 * avogadro_per_mol * e2 * ionic_strength_mol_per_m3() /

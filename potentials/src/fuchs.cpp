@@ -9,7 +9,7 @@
 namespace brownfloc::potentials {
 
 double honig_beta(double h_m, double a1_m, double a2_m) {
-    // Honig, Roebersen & Wiersema (1971), eq. 27 [rational fit quoted from memory; its limits
+    // Honig, Roebersen & Wiersema (1971) [rational fit quoted from memory; its limits
     // beta -> 1 (u -> inf) and beta -> 1/(2u) (u -> 0) are exact]; a_bar = 2 a1 a2/(a1 + a2).
     const double u = h_m * (a1_m + a2_m) / (2.0 * a1_m * a2_m);
     return (6.0 * u * u + 13.0 * u + 2.0) / (6.0 * u * u + 4.0 * u);

@@ -52,7 +52,7 @@ EnergySlope gregory_kernel(double h_m) {
 }
 
 EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m) {
-    // Gregory (1981), eq. 15 (sphere-sphere via Derjaguin): U = -(A R/6) f(h)/h, R = a1 a2/(a1+a2).
+    // Gregory (1981) [equation number not checked] (sphere-sphere via Derjaguin): U = -(A R/6) f(h)/h, R = a1 a2/(a1+a2).
     const double factor = -hamaker_J * a1_m * a2_m / (a1_m + a2_m) / 6.0;
     const EnergySlope k = gregory_kernel(h_m);
     return {factor * k.energy_J, factor * k.slope_J_per_m};

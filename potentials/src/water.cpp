@@ -7,7 +7,7 @@
 namespace brownfloc::potentials {
 
 double water_viscosity_Pa_s(double temperature_K) {
-    // Patek et al. (2009), J. Phys. Chem. Ref. Data 38, 21, eq. 11 and Table 4:
+    // Patek et al. (2009), J. Phys. Chem. Ref. Data 38, 21 [equation and table numbers not checked]:
     // eta / (1 uPa s) = sum a_i (T / 300 K)^b_i at 0.1 MPa.
     constexpr double a[4] = {280.68, 511.45, 61.131, 0.45903};
     constexpr double b[4] = {-1.9, -7.7, -19.6, -40.0};
@@ -18,7 +18,7 @@ double water_viscosity_Pa_s(double temperature_K) {
 }
 
 double water_relative_permittivity(double temperature_K) {
-    // Malmberg & Maryott (1956), J. Res. NBS 56, 1, eq. 6 (t in degC, 0-100 degC).
+    // Malmberg & Maryott (1956), J. Res. NBS 56, 1 (t in degC, 0-100 degC).
     const double t = temperature_K - constants::zero_celsius_K;
     return 87.740 - 0.40008 * t + 9.398e-4 * t * t - 1.410e-6 * t * t * t;
 }

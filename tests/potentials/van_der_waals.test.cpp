@@ -61,7 +61,7 @@ TEST_CASE("van der Waals slopes agree with finite differences", "[potentials][vd
 }
 
 TEST_CASE("Gregory's retarded form reduces to Derjaguin at small gaps and is weaker beyond", "[potentials][vdw][validation]") {
-    // Gregory (1981), eq. 15: the factor 1 - (bh/lambda) ln(1 + lambda/(bh)) -> 1 as h -> 0.
+    // Gregory (1981) [equation number not checked]: the factor 1 - (bh/lambda) ln(1 + lambda/(bh)) -> 1 as h -> 0.
     // At h = 0.01 nm the factor is 1 - 5.3e-4 * ln(1881) = 0.996: tolerance 0.5 %.
     const double a = 200e-9;
     CHECK_THAT(vdw_gregory_retarded(A, a, a, 1e-11).energy_J, WithinRel(vdw_derjaguin(A, a, a, 1e-11).energy_J, 5e-3));

@@ -26,7 +26,7 @@ TEST_CASE("water viscosity falls with temperature", "[potentials][water]") {
 }
 
 TEST_CASE("water permittivity matches Malmberg and Maryott's table", "[potentials][water][validation]") {
-    // Malmberg & Maryott (1956), Table 2: 78.30 at 25 degC, 80.10 at 20 degC, 87.74 at 0 degC.
+    // Malmberg & Maryott (1956), their table [number from memory]: 78.30 at 25 degC, 80.10 at 20 degC, 87.74 at 0 degC.
     // Tolerance: the table is printed to 0.01.
     CHECK_THAT(water_relative_permittivity(298.15), WithinAbs(78.30, 0.01));
     CHECK_THAT(water_relative_permittivity(293.15), WithinAbs(80.10, 0.01));

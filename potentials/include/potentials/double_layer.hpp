@@ -25,7 +25,7 @@ enum class SuperpositionGeometry {
                                                      double a1_m, double a2_m, double h_m,
                                                      SuperpositionGeometry geometry);
 
-// Hogg, Healy & Fuerstenau (1966), Trans. Faraday Soc. 62, 1638, eq. 15:
+// Hogg, Healy & Fuerstenau (1966), Trans. Faraday Soc. 62, 1638 [equation number not checked]:
 // U = pi eps R [2 psi1 psi2 ln((1+e^-kh)/(1-e^-kh)) + (psi1^2+psi2^2) ln(1-e^-2kh)],
 // R = a1 a2 / (a1 + a2). Low potentials (<~ 25-50 mV), kappa a >~ 5-10.
 [[nodiscard]] EnergySlope double_layer_constant_potential(double permittivity_F_per_m, double kappa_per_m,

@@ -22,7 +22,7 @@ enum class VdwForm {
 // Derjaguin limit of the above: -A a1 a2 / (6 h (a1 + a2)).
 [[nodiscard]] EnergySlope vdw_derjaguin(double hamaker_J, double a1_m, double a2_m, double h_m);
 
-// Retarded attraction as published by Gregory (1981), eq. 15:
+// Retarded attraction as published by Gregory (1981) [equation number not checked]:
 // U = -(A R / 6h) [1 - (b h / lambda) ln(1 + lambda / (b h))], R = a1 a2/(a1+a2),
 // b = 5.32, lambda = 100 nm (characteristic wavelength of the dispersion interaction).
 // Built on the Derjaguin form: good to about 10 % while h < 0.1 a.

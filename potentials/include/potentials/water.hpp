@@ -7,11 +7,11 @@ inline constexpr double water_min_temperature_K = 273.15;
 inline constexpr double water_max_temperature_K = 373.15;
 
 // Shear viscosity [Pa s] at temperature_K. Patek, Hruby, Klomfar, Souckova & Harvey (2009),
-// J. Phys. Chem. Ref. Data 38, 21, eq. 11 (0.1 MPa, 253-383 K).
+// J. Phys. Chem. Ref. Data 38, 21 (0.1 MPa, 253-383 K).
 [[nodiscard]] double water_viscosity_Pa_s(double temperature_K);
 
 // Relative permittivity (dimensionless) at temperature_K. Malmberg & Maryott (1956),
-// J. Res. NBS 56, 1, eq. 6 (0-100 degC).
+// J. Res. NBS 56, 1 (0-100 degC).
 [[nodiscard]] double water_relative_permittivity(double temperature_K);
 
 }  // namespace brownfloc::potentials
