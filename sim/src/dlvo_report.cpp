@@ -200,6 +200,12 @@ Json dlvo_json(const DlvoReport& report, const Scenario& scenario) {
     }
     json.set("pairs", std::move(pairs));
     json.set("warnings", Json(report.warnings));
+    json.set("notes", Json(std::vector<std::string>{
+                          "half_life_hydrodynamic_s is the one to compare with a real dispersion: liquid must drain "
+                          "from the gap before particles touch (Honig et al. 1971). The Brownian-dynamics simulator has "
+                          "no hydrodynamic interactions, so its half-life follows half_life_s.",
+                          "stability_ratio_hydrodynamic depends on min_gap_nm: Honig's correction diverges at contact.",
+                          "surface_potential_mV is usually a zeta potential, which understates the surface potential."}));
     add_common_json(json, scenario);
     return json;
 }
