@@ -10,7 +10,7 @@ using Catch::Matchers::WithinRel;
 
 namespace {
 constexpr double A = 1e-20;
-// Direct transcription of Hamaker (1937), for comparison where it does not cancel.
+// The textbook form of Hamaker (1937), written out directly,, for comparison where it does not cancel.
 double hamaker_direct(double a1, double a2, double h) {
     const double r = a1 + a2 + h, s2 = (a1 + a2) * (a1 + a2), d2 = (a1 - a2) * (a1 - a2);
     return -A / 6 * (2 * a1 * a2 / (r * r - s2) + 2 * a1 * a2 / (r * r - d2) + std::log((r * r - s2) / (r * r - d2)));
