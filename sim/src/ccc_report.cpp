@@ -138,9 +138,7 @@ void write_ccc_text(std::ostream& out, const CccReport& report, const Scenario& 
         return v ? format_significant(*v, 4) + " mM" : "none (" + note + ")";
     };
     out << "brownfloc ccc: " << scenario.source << "\n\n";
-    auto row = [&](const std::string& label, const std::string& value) {
-        out << label << std::string(label.size() < 32 ? 32 - label.size() : 1, ' ') << value << "\n";
-    };
+    auto row = [&](const std::string& label, const std::string& value) { write_row(out, label, value, 32); };
     row("Varied salt", report.varied_salt + (scenario.titrant ? " (titrant, added on top of [electrolyte])" : ""));
     if (scenario.species.size() > 1)
         row("Limiting pair", std::to_string(lim.species_i + 1) + "-" + std::to_string(lim.species_j + 1) +

@@ -33,9 +33,7 @@ void write_pair(std::ostream& out, const PairStability& p, const Scenario& s, bo
             << " / " << s.species[p.species_j].name << ")\n";
     else
         out << "\n";
-    auto row = [&](const std::string& label, const std::string& value) {
-        out << "  " << label << std::string(label.size() < 34 ? 34 - label.size() : 1, ' ') << value << "\n";
-    };
+    auto row = [&](const std::string& label, const std::string& value) { write_row(out, "  " + label, value, 36); };
     row("kappa a", format_significant(p.kappa_a, 4));
     if (p.barrier_gap_nm)
         row("energy barrier", format_fixed(p.barrier_kT, 2) + " kT at " + format_significant(*p.barrier_gap_nm, 4) +

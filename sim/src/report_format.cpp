@@ -21,6 +21,10 @@ std::string format_significant(double value, int significant) {
     return buffer;
 }
 
+void write_row(std::ostream& out, const std::string& label, const std::string& value, std::size_t width) {
+    out << label << std::string(label.size() < width ? width - label.size() : 1, ' ') << value << "\n";
+}
+
 std::string format_duration(double seconds) {
     struct Unit { const char* name; double seconds; };
     static constexpr Unit units[] = {{"years", 365.25 * 86400}, {"days", 86400}, {"hours", 3600},
