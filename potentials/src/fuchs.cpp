@@ -15,12 +15,19 @@ double honig_beta(double h_m, double a1_m, double a2_m) {
     return (6.0 * u * u + 13.0 * u + 2.0) / (6.0 * u * u + 4.0 * u);
 }
 
-double log_stability_ratio(const PairInteraction& pair, double min_gap_m, bool hydrodynamic) {
+namespace {
+
+// Upper end of the first part of the integral (and of its extremum search).
+double far_gap_m(const PairInteraction& pair) {
+    return std::max(default_max_gap_m(pair), 10.0 * (pair.radius1_m() + pair.radius2_m()));
+}
+
+// ln W given the pair's extrema on [min_gap, far_gap_m(pair)].
+double log_stability_ratio(const PairInteraction& pair, double min_gap_m, bool hydrodynamic, const Extrema& ext) {
     const double a1 = pair.radius1_m(), a2 = pair.radius2_m(), s = a1 + a2;
     const double contact = s + min_gap_m;  // R_c
     const double kT = pair.kT_J();
-    const double far_gap = std::max(default_max_gap_m(pair), 10.0 * s);
-    const Extrema ext = find_extrema(pair, min_gap_m, far_gap);
+    const double far_gap = far_gap_m(pair);
     // Scale out the largest exp(U/kT) so that barriers of any height stay in range.
     const double reference = ext.has_maximum ? std::max(0.0, ext.local_maximum_J / kT) : 0.0;
 
@@ -56,10 +63,18 @@ double log_stability_ratio(const PairInteraction& pair, double min_gap_m, bool h
     return reference + std::log(inner.value + outer.value);
 }
 
+}  // namespace
+
+double log_stability_ratio(const PairInteraction& pair, double min_gap_m, bool hydrodynamic) {
+    return log_stability_ratio(pair, min_gap_m, hydrodynamic, find_extrema(pair, min_gap_m, far_gap_m(pair)));
+}
+
 StabilityRatios stability_ratios(const PairInteraction& pair, double min_gap_m) {
+    // One extremum search serves both integrals of the same pair.
+    const Extrema ext = find_extrema(pair, min_gap_m, far_gap_m(pair));
     StabilityRatios out;
-    out.log_w = log_stability_ratio(pair, min_gap_m, false);
-    out.log_w_hydrodynamic = log_stability_ratio(pair, min_gap_m, true);
+    out.log_w = log_stability_ratio(pair, min_gap_m, false, ext);
+    out.log_w_hydrodynamic = log_stability_ratio(pair, min_gap_m, true, ext);
     out.log_w_hydrodynamic_vdw_only = log_stability_ratio(pair.van_der_waals_only(), min_gap_m, true);
     return out;
 }
