@@ -4,7 +4,6 @@
 #include <cassert>
 #include <cmath>
 
-#include "potentials/constants.hpp"
 #include "potentials/effective_potential.hpp"
 
 namespace brownfloc::potentials {
@@ -12,12 +11,9 @@ namespace {
 
 // Kernels of the double layer as functions of h alone (see the header).
 std::array<double, 4> double_layer_kernels(DoubleLayerModel model, double kappa, double h) {
-    const double kh = kappa * h, e = std::exp(-kh);
-    if (model == DoubleLayerModel::linear_superposition) return {e, 0.0, 0.0, 0.0};
-    const double one_minus_e = -std::expm1(-kh), one_minus_e2 = -std::expm1(-2 * kh);
-    const double k1 = std::log1p(2.0 * e / one_minus_e);
-    const double k2 = e < 0.5 ? std::log1p(-e * e) : std::log(one_minus_e2);
-    return {-2.0 * kappa * e / one_minus_e2, 2.0 * kappa * e * e / one_minus_e2, k1, k2};
+    if (model == DoubleLayerModel::linear_superposition) return {std::exp(-kappa * h), 0.0, 0.0, 0.0};
+    const HhfKernels k = hhf_kernels(kappa, h);
+    return {k.dk1_dh, k.dk2_dh, k.k1, k.k2};
 }
 
 // Gregory (1981) with the radius factor taken out: {d(f/h)/dh, f/h}.
@@ -46,20 +42,12 @@ double RadiusFreeInteraction::double_layer_potential_V(double surface_potential_
 }
 
 EnergySlope RadiusFreeInteraction::double_layer_term(double h, const PairSurfaces& p) const {
-    const double a1 = p.radius1_m, a2 = p.radius2_m;
     const std::array<double, 4> k = double_layer_.values(h);
-    if (model_ == DoubleLayerModel::linear_superposition) {
-        // Bell, Levine & McCartney (1970): U = 4 pi eps psi1 psi2 (a1 a2 / r) e^-kh, r = a1 + a2 + h.
-        const double r = a1 + a2 + h;
-        const double u = 4.0 * constants::pi * permittivity_F_per_m_ * p.potential1_V * p.potential2_V * a1 * a2 / r * k[0];
-        return {u, -u * (kappa_per_m_ + 1.0 / r)};
-    }
-    // Hogg, Healy & Fuerstenau (1966) / Wiese & Healy (1970).
-    const double sign = model_ == DoubleLayerModel::constant_potential ? 1.0 : -1.0;
-    const double prefactor = constants::pi * permittivity_F_per_m_ * a1 * a2 / (a1 + a2);
-    const double cross = 2.0 * p.potential1_V * p.potential2_V;
-    const double squares = p.potential1_V * p.potential1_V + p.potential2_V * p.potential2_V;
-    return {prefactor * (cross * k[2] + sign * squares * k[3]), prefactor * (cross * k[0] + sign * squares * k[1])};
+    if (model_ == DoubleLayerModel::linear_superposition)
+        return superposition_from_exponential(permittivity_F_per_m_, kappa_per_m_, p.potential1_V, p.potential2_V,
+                                              p.radius1_m, p.radius2_m, h, k[0], SuperpositionGeometry::sphere);
+    return hhf_from_kernels(permittivity_F_per_m_, p.potential1_V, p.potential2_V, p.radius1_m, p.radius2_m,
+                            {k[2], k[3], k[0], k[1]}, model_);
 }
 
 EnergySlope RadiusFreeInteraction::total(double h_m, const PairSurfaces& p) const {
@@ -71,8 +59,7 @@ EnergySlope RadiusFreeInteraction::total(double h_m, const PairSurfaces& p) cons
         case VdwForm::derjaguin: out = vdw_derjaguin(p.hamaker_J, p.radius1_m, p.radius2_m, h); break;
         case VdwForm::gregory_retarded: {
             const std::array<double, 2> g = retarded_->values(h);
-            const double factor = -p.hamaker_J * p.radius1_m * p.radius2_m / (p.radius1_m + p.radius2_m) / 6.0;
-            out = {factor * g[1], factor * g[0]};
+            out = vdw_gregory_from_kernel(p.hamaker_J, p.radius1_m, p.radius2_m, {g[1], g[0]});
             break;
         }
     }

@@ -51,11 +51,14 @@ EnergySlope gregory_kernel(double h_m) {
     return {f / h_m, df / h_m - f / (h_m * h_m)};
 }
 
-EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m) {
+EnergySlope vdw_gregory_from_kernel(double hamaker_J, double a1_m, double a2_m, const EnergySlope& kernel) {
     // Gregory (1981) [equation number not checked] (sphere-sphere via Derjaguin): U = -(A R/6) f(h)/h, R = a1 a2/(a1+a2).
     const double factor = -hamaker_J * a1_m * a2_m / (a1_m + a2_m) / 6.0;
-    const EnergySlope k = gregory_kernel(h_m);
-    return {factor * k.energy_J, factor * k.slope_J_per_m};
+    return {factor * kernel.energy_J, factor * kernel.slope_J_per_m};
+}
+
+EnergySlope vdw_gregory_retarded(double hamaker_J, double a1_m, double a2_m, double h_m) {
+    return vdw_gregory_from_kernel(hamaker_J, a1_m, a2_m, gregory_kernel(h_m));
 }
 
 EnergySlope van_der_waals(VdwForm form, double hamaker_J, double a1_m, double a2_m, double h_m) {

@@ -38,4 +38,26 @@ enum class SuperpositionGeometry {
                                                        double psi1_V, double psi2_V,
                                                        double a1_m, double a2_m, double h_m);
 
+// The radius-free parts of the forms above, shared with the tables of
+// radius_free_interaction.hpp.
+
+// Superposition with exp(-kappa h) supplied by the caller (computed or tabulated).
+[[nodiscard]] EnergySlope superposition_from_exponential(double permittivity_F_per_m, double kappa_per_m,
+                                                         double psi1_eff_V, double psi2_eff_V, double a1_m,
+                                                         double a2_m, double h_m, double exp_minus_kappa_h,
+                                                         SuperpositionGeometry geometry);
+
+// Hogg-Healy-Fuerstenau kernels of h alone, e = exp(-kappa h): K1 = ln((1+e)/(1-e)),
+// K2 = ln(1-e^2) (dimensionless) and their h-derivatives [1/m].
+struct HhfKernels {
+    double k1 = 0, k2 = 0, dk1_dh = 0, dk2_dh = 0;
+};
+[[nodiscard]] HhfKernels hhf_kernels(double kappa_per_m, double h_m);
+
+// pi eps R [2 psi1 psi2 K1 +- (psi1^2+psi2^2) K2], + for constant potential, - for constant
+// charge; `model` must be one of those two.
+[[nodiscard]] EnergySlope hhf_from_kernels(double permittivity_F_per_m, double psi1_V, double psi2_V,
+                                           double a1_m, double a2_m, const HhfKernels& kernels,
+                                           DoubleLayerModel model);
+
 }  // namespace brownfloc::potentials

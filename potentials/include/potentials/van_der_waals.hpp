@@ -31,6 +31,8 @@ enum class VdwForm {
 // The radius-free part of Gregory's form: {f(h)/h [1/m], d(f/h)/dh [1/m^2]} in the fields of
 // an EnergySlope, so that U = -(A R / 6) f/h.
 [[nodiscard]] EnergySlope gregory_kernel(double h_m);
+// Gregory's U and dU/dh from that kernel (computed or tabulated): -(A R / 6) times it.
+[[nodiscard]] EnergySlope vdw_gregory_from_kernel(double hamaker_J, double a1_m, double a2_m, const EnergySlope& kernel);
 
 inline constexpr double gregory_b = 5.32;
 inline constexpr double gregory_lambda_m = 100e-9;
