@@ -1,5 +1,7 @@
 #pragma once
 // The subcommands of `brownfloc`, free of CLI11 so that only main.cpp pays for it.
+#include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -20,8 +22,18 @@ struct DlvoOptions {
     std::string curve_path;  // empty: no curve file
 };
 
+struct RunCommandOptions {
+    CommonOptions common;
+    std::string output_dir;  // empty: runs/<scenario stem>-seed<S>
+    std::optional<std::uint64_t> seed;
+    int threads = 0;  // 0: OMP_NUM_THREADS, else all cores
+    bool quiet = false;
+    bool overwrite = false;
+};
+
 // Each returns the exit code; input errors propagate as brownfloc::InputError.
 int run_dlvo(const DlvoOptions& options);
 int run_ccc(const CommonOptions& options);
+int run_run(const RunCommandOptions& options);
 
 }  // namespace brownfloc::app

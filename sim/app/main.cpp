@@ -26,7 +26,7 @@ void add_common(CLI::App& command, CommonOptions& options) {
 }  // namespace
 
 int main(int argc, char** argv) {
-    CLI::App app{"brownfloc: colloidal stability from DLVO theory, and (later) Brownian-dynamics "
+    CLI::App app{"brownfloc: colloidal stability from DLVO theory, and Brownian-dynamics "
                  "aggregation runs. Energies in kT, lengths in nm, concentrations in mM, times in s."};
     app.set_version_flag("--version", std::string("brownfloc ") + BROWNFLOC_VERSION);
     app.require_subcommand(1);
@@ -47,6 +47,20 @@ int main(int argc, char** argv) {
                "and kinetic criteria, and for 1:1, 2:2, 3:3 salts with the Schulze-Hardy exponent");
     add_common(*ccc_command, ccc);
 
+    RunCommandOptions run;
+    CLI::App* run_command = app.add_subcommand(
+        "run", "Brownian-dynamics aggregation run: cluster growth, size distributions, measured rate constant "
+               "and stability ratio, fractal dimension; writes a run directory (see the README)");
+    add_common(*run_command, run.common);
+    run_command->add_option("-o,--output", run.output_dir, "Run directory (default runs/<scenario name>-seed<S>)")
+        ->type_name("RUN_DIR");
+    run_command->add_option("--threads", run.threads, "OpenMP threads (default: OMP_NUM_THREADS, else all cores); "
+                                                      "results are bitwise the same for any count")
+        ->check(CLI::Range(1, 4096));
+    run_command->add_option("--seed", run.seed, "Random seed, replacing [run] seed");
+    run_command->add_flag("--quiet", run.quiet, "No progress lines on standard error");
+    run_command->add_flag("--overwrite", run.overwrite, "Replace the results in a run directory that holds another run");
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
@@ -58,6 +72,7 @@ int main(int argc, char** argv) {
     try {
         if (dlvo_command->parsed()) return run_dlvo(dlvo);
         if (ccc_command->parsed()) return run_ccc(ccc);
+        if (run_command->parsed()) return run_run(run);
     } catch (const brownfloc::InputError& e) {
         std::cerr << "error: " << e.what() << "\n";
         return exit_bad_input;

@@ -1,0 +1,176 @@
+#include "sim/run_driver.hpp"
+
+#include <omp.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <filesystem>
+
+#include "run_directory.hpp"
+#include "run_summary.hpp"
+#include "sha256.hpp"
+#include "sim/engine.hpp"
+#include "sim/engine_setup.hpp"
+#include "sim/run_recorder.hpp"
+
+namespace brownfloc::sim {
+
+namespace {
+
+using Clock = std::chrono::steady_clock;
+
+constexpr int default_outputs = 100;
+constexpr int log_outputs_per_decade = 20;
+constexpr double log_first_output_fraction = 1e-4;
+
+// Steps (after the step with that number is done) at which an output is written.
+std::vector<std::int64_t> output_steps(const Scenario& s, const RunPlan& plan) {
+    const double dt = plan.model->time_step.time_step_s;
+    const std::int64_t total = plan.total_steps;
+    std::vector<std::int64_t> steps{0};
+    const bool log = s.output.output_spacing && *s.output.output_spacing == "log";
+    if (log) {
+        const double first = s.output.output_interval_s.value_or(plan.end_time_s * log_first_output_fraction);
+        for (int k = 0;; ++k) {
+            const double t = first * std::pow(10.0, double(k) / log_outputs_per_decade);
+            if (t >= plan.end_time_s) break;
+            steps.push_back(std::max<std::int64_t>(1, std::llround(t / dt)));
+        }
+    } else {
+        const double interval = s.output.output_interval_s.value_or(plan.end_time_s / default_outputs);
+        for (int k = 1;; ++k) {
+            const double t = k * interval;
+            if (t >= plan.end_time_s * (1 - 1e-12)) break;
+            steps.push_back(std::max<std::int64_t>(1, std::llround(t / dt)));
+        }
+    }
+    steps.push_back(total);
+    std::sort(steps.begin(), steps.end());
+    steps.erase(std::unique(steps.begin(), steps.end()), steps.end());
+    while (!steps.empty() && steps.back() > total) steps.pop_back();
+    return steps;
+}
+
+std::string short_number(double v, int digits = 3) {
+    char buf[40];
+    std::snprintf(buf, sizeof buf, "%.*g", digits, v);
+    return buf;
+}
+
+void print_plan(std::ostream& out, const RunPlan& plan, const std::string& dir) {
+    const TimeStep& ts = plan.model->time_step;
+    out << "brownfloc run: " << plan.particle_count << " particles, box " << short_number(plan.particles.box_length_m * 1e9, 4)
+        << " nm; time step " << short_number(ts.time_step_s) << " s (" << ts.limited_by << ")\n"
+        << "  predicted_steps " << plan.total_steps << " (" << short_number(plan.steps_per_half_life) << " per fast half-life of "
+        << short_number(plan.half_life_fast_s) << " s; end time " << short_number(plan.end_time_s) << " s), "
+        << short_number(double(plan.total_steps) * double(plan.particle_count)) << " particle-steps\n"
+        << "  writing to " << dir << "\n";
+    if (ts.user_given && ts.time_step_s > ts.rule_time_step_s)
+        out << "  note: time_step_s is " << short_number(ts.time_step_s / ts.rule_time_step_s)
+            << " times the step the rule gives; results may depend on it\n";
+}
+
+}  // namespace
+
+std::string default_run_directory(const std::string& scenario_path, std::uint64_t seed) {
+    const std::string stem = std::filesystem::path(scenario_path).stem().string();
+    std::string dir = "runs/";
+    dir += stem.empty() ? std::string("scenario") : stem;
+    dir += "-seed";
+    dir += std::to_string(seed);
+    return dir;
+}
+
+RunResult execute_run(const Scenario& input, const RunOptions& options) {
+    Scenario scenario = input;
+    if (options.seed) scenario.run.seed = *options.seed;
+    const std::uint64_t seed = scenario.run.seed;
+    const RunPlan plan = plan_run(scenario, seed);
+    RunResult result;
+    result.output_dir = options.output_dir.empty() ? default_run_directory(scenario.source, seed) : options.output_dir;
+    std::ostream* msg = options.quiet ? nullptr : options.messages;
+    if (msg) print_plan(*msg, plan, result.output_dir);
+
+    RunDirectory dir(result.output_dir, options.overwrite);
+    const std::string resolved = resolved_scenario_toml(scenario);
+    dir.write_file("scenario.toml", resolved);
+
+    omp_set_num_threads(std::max(1, options.threads));
+    const auto start = Clock::now();
+    Engine engine(plan.model, plan.particles);
+    RunRecorder recorder(plan, engine);
+    std::ofstream timeseries = dir.open("timeseries.csv");
+    std::ofstream sizes = dir.open("size_distribution.csv");
+    RunRecorder::write_timeseries_header(timeseries, plan.model->reversible);
+    RunRecorder::write_size_distribution_header(sizes);
+
+    const std::vector<std::int64_t> outputs = output_steps(scenario, plan);
+    std::size_t next_output = 0;
+    auto last_report = Clock::now();
+    while (true) {
+        if (next_output < outputs.size() && outputs[next_output] == engine.steps_taken()) {
+            recorder.write_output(engine, timeseries, sizes);
+            ++next_output;
+        }
+        if (engine.steps_taken() >= plan.total_steps) break;
+        engine.step();
+        recorder.after_step(engine);
+        if (msg && (engine.steps_taken() & 63) == 0) {
+            const auto now = Clock::now();
+            if (now - last_report > std::chrono::seconds(2)) {
+                last_report = now;
+                const double wall = std::chrono::duration<double>(now - start).count();
+                const double done = double(engine.steps_taken()) / double(plan.total_steps);
+                const double rate = double(engine.steps_taken()) * double(engine.particle_count()) / wall;
+                *msg << "  " << short_number(100 * done, 3) << " %  t = " << short_number(engine.time_s()) << " s ("
+                     << short_number(engine.time_s() / plan.half_life_fast_s) << " fast half-lives)  clusters "
+                     << engine.bodies().size() << "  " << short_number(rate) << " particle-steps/s  ETA "
+                     << short_number(wall * (1 - done) / std::max(done, 1e-12)) << " s\n";
+            }
+        }
+    }
+    dir.check(timeseries, "timeseries.csv");
+    dir.check(sizes, "size_distribution.csv");
+
+    const std::vector<ClusterRow> rows = recorder.cluster_rows(engine);
+    {
+        std::string csv = "cluster_id,size,radius_of_gyration_nm,hydrodynamic_radius_nm,spans_box";
+        for (const std::string& name : plan.model->species_names) {
+            csv += ",count_";
+            csv += name;
+        }
+        csv += "\n";
+        char buf[64];
+        for (const ClusterRow& r : rows) {
+            csv += std::to_string(r.cluster_id);
+            csv += ',';
+            csv += std::to_string(r.size);
+            csv += ',';
+            if (r.radius_of_gyration_nm) { std::snprintf(buf, sizeof buf, "%.17g", *r.radius_of_gyration_nm); csv += buf; }
+            csv += ",";
+            if (r.hydrodynamic_radius_nm) { std::snprintf(buf, sizeof buf, "%.17g", *r.hydrodynamic_radius_nm); csv += buf; }
+            csv += r.spans_box ? ",true" : ",false";
+            for (std::int64_t c : r.per_species) {
+                csv += ',';
+                csv += std::to_string(c);
+            }
+            csv += "\n";
+        }
+        dir.write_file("clusters.csv", csv);
+    }
+    RunTiming timing;
+    timing.wall_time_s = std::chrono::duration<double>(Clock::now() - start).count();
+    timing.threads = std::max(1, options.threads);
+    const Json summary = run_summary_json(scenario, plan, engine, recorder, rows, sha256_hex(resolved), timing);
+    result.summary_json = summary.dump();
+    dir.write_file("summary.json", result.summary_json + "\n");
+    if (msg) {
+        *msg << "  done: " << engine.steps_taken() << " steps in " << short_number(timing.wall_time_s) << " s; "
+             << engine.bodies().size() << " clusters; results in " << result.output_dir << "\n";
+    }
+    return result;
+}
+
+}  // namespace brownfloc::sim
