@@ -17,26 +17,28 @@ constexpr std::uint32_t npos = std::numeric_limits<std::uint32_t>::max();
 constexpr double pi = potentials::constants::pi;
 }  // namespace
 
-Engine::Engine(std::shared_ptr<const EngineModel> model, InitialParticles particles) : model_(std::move(model)) {
+Engine::Engine(std::shared_ptr<const EngineModel> model, InitialParticles particles, std::optional<std::uint64_t> seed)
+    : model_(std::move(model)), seed_(seed.value_or(model_->seed)) {
     const std::size_t n = particles.radii_m.size();
     if (n == 0 || particles.positions_m.size() != n || particles.species.size() != n)
         throw std::invalid_argument("Engine: positions, radii and species must have the same, non-zero length");
     if (n >= (std::size_t{1} << 28)) throw std::invalid_argument("Engine: at most 2^28 particles");
     box_ = particles.box_length_m;
     inv_box_ = 1.0 / box_;
+    half_box_ = 0.5 * box_;
     auto resize = [n](auto&... v) { (v.resize(n), ...); };
-    resize(x_, y_, z_, px_, py_, pz_, bx_, by_, bz_, ox_, oy_, oz_, fx_, fy_, fz_, radius_, species_, body_, next_,
+    resize(pos_, px_, py_, pz_, bx_, by_, bz_, ox_, oy_, oz_, fx_, fy_, fz_, radius_, next_,
            cx_, cy_, cz_, size_, diff_t_, diff_r_, hydro_radius_, spans_, amp_t_, amp_r_, mob_t_, mob_r_);
     bodies_.resize(n);
     for (std::uint32_t i = 0; i < n; ++i) {
         const Vec3& p = particles.positions_m[i];
-        x_[i] = cx_[i] = p[0];
-        y_[i] = cy_[i] = p[1];
-        z_[i] = cz_[i] = p[2];
+        pos_[i].x = cx_[i] = p[0];
+        pos_[i].y = cy_[i] = p[1];
+        pos_[i].z = cz_[i] = p[2];
         ox_[i] = oy_[i] = oz_[i] = 0.0;
         radius_[i] = particles.radii_m[i];
-        species_[i] = particles.species[i];
-        body_[i] = i;
+        pos_[i].species = particles.species[i];
+        pos_[i].body = i;
         next_[i] = npos;
         size_[i] = 1;
         spans_[i] = 0;
@@ -51,12 +53,6 @@ Engine::Engine(std::shared_ptr<const EngineModel> model, InitialParticles partic
     min_relative_gap_ever_ = std::numeric_limits<double>::infinity();
 }
 
-Vec3 Engine::minimum_image(const Vec3& a, const Vec3& b) const {
-    Vec3 d{b[0] - a[0], b[1] - a[1], b[2] - a[2]};
-    for (double& c : d) c -= box_ * std::nearbyint(c * inv_box_);
-    return d;
-}
-
 std::vector<std::uint32_t> Engine::members(std::uint32_t b) const {
     std::vector<std::uint32_t> out;
     out.reserve(size_[b]);
@@ -69,24 +65,6 @@ std::vector<Vec3> Engine::unwrapped_members_m(std::uint32_t b) const {
     out.reserve(size_[b]);
     for (std::uint32_t k = b; k != npos; k = next_[k]) out.push_back({cx_[b] + ox_[k], cy_[b] + oy_[k], cz_[b] + oz_[k]});
     return out;
-}
-
-double Engine::capture_gap(std::uint32_t i, std::uint32_t j) const {
-    return model_->pair_kind(species_[i], species_[j]).capture_gap_m;
-}
-
-double Engine::force_between(std::uint32_t i, std::uint32_t j, double gap_m) const {
-    const EngineModel& m = *model_;
-    if (m.radius_free) {
-        const std::uint32_t si = species_[i], sj = species_[j];
-        if (gap_m >= m.pair_kind(si, sj).cutoff_gap_m) return 0.0;
-        return m.radius_free->force_N(gap_m, {radius_[i], radius_[j], std::sqrt(m.species_hamaker_J[si] * m.species_hamaker_J[sj]),
-                                              m.species_double_layer_potential_V[si], m.species_double_layer_potential_V[sj]});
-    }
-    const std::size_t k = m.pair_index(species_[i], species_[j]);
-    const auto& table = m.pair_tables[k];
-    if (!table || gap_m >= m.pair_kinds[k].cutoff_gap_m) return 0.0;
-    return table->force_N(gap_m);
 }
 
 void Engine::update_mobility(std::uint32_t b) {
@@ -113,11 +91,15 @@ void Engine::update_mobility(std::uint32_t b) {
         std::vector<double> radii;
         radii.reserve(size_[b]);
         for (std::uint32_t k = b; k != npos; k = next_[k]) radii.push_back(radius_[k]);
-        const std::uint64_t sample_seed = m.seed * 0x9E3779B97F4A7C15ull + (std::uint64_t(b) << 32) + size_[b];
+        const std::uint64_t sample_seed = seed_ * 0x9E3779B97F4A7C15ull + (std::uint64_t(b) << 32) + size_[b];
         r_h = analysis::kirkwood_hydrodynamic_radius_m(centres, radii, sample_seed);
         zeta_t = 6 * pi * eta * r_h;
         zeta_r = 8 * pi * eta * r_h * r_h * r_h;
     }
+    double max_offset2 = 0;
+    for (std::uint32_t k = b; k != npos; k = next_[k])
+        max_offset2 = std::max(max_offset2, ox_[k] * ox_[k] + oy_[k] * oy_[k] + oz_[k] * oz_[k]);
+    max_member_diffusion_ = std::max(max_member_diffusion_, kT / zeta_t + kT / zeta_r * max_offset2);
     hydro_radius_[b] = r_h;
     diff_t_[b] = kT / zeta_t;
     diff_r_[b] = kT / zeta_r;
@@ -128,16 +110,10 @@ void Engine::update_mobility(std::uint32_t b) {
 }
 
 void Engine::set_position_from_body(std::uint32_t i) {
-    const std::uint32_t b = body_[i];
-    double p[3] = {cx_[b] + ox_[i], cy_[b] + oy_[i], cz_[b] + oz_[i]};
-    for (double& c : p) {
-        c -= box_ * std::floor(c * inv_box_);
-        if (c >= box_) c -= box_;
-        if (c < 0) c = 0;
-    }
-    x_[i] = p[0];
-    y_[i] = p[1];
-    z_[i] = p[2];
+    const std::uint32_t b = pos_[i].body;
+    pos_[i].x = wrap(cx_[b] + ox_[i]);
+    pos_[i].y = wrap(cy_[b] + oy_[i]);
+    pos_[i].z = wrap(cz_[b] + oz_[i]);
 }
 
 }  // namespace brownfloc::sim

@@ -1,15 +1,10 @@
-// Capture and bonding. A pair of particles of different bodies is captured in a step when
-// its gap ends at or below the capture gap h_c, or when it crossed h_c inside the step and
-// came back out: for a Brownian bridge of the gap from x0 = h0 - h_c to x1 = h1 - h_c the
-// crossing probability is exp(-x0 x1 / (D_rel dt)), D_rel the relative diffusion
-// coefficient along the line of centres (the reflection principle; e.g. Karatzas & Shreve
-// 1991, Brownian Motion and Stochastic Calculus, ch. 2.6 [memory for the section]; its use in
-// Brownian dynamics: Strating 1999, Phys. Rev. E 59, 2175 [memory]). The uniform number for
-// the test is keyed by (seed, step, smaller id, capture stream, larger id).
+// Capture and bonding (the rule itself is in capture_rule.hpp). The uniform number for the
+// bridge test is keyed by (seed, step, smaller id, capture stream, larger id).
 #include <algorithm>
 #include <cmath>
 #include <limits>
 
+#include "sim/capture_rule.hpp"
 #include "sim/engine.hpp"
 #include "sim/philox_noise.hpp"
 
@@ -22,7 +17,7 @@ constexpr int overlap_passes = 16;
 }  // namespace
 
 double Engine::effective_diffusion(std::uint32_t i, const Vec3& unit) const {
-    const std::uint32_t b = body_[i];
+    const std::uint32_t b = pos_[i].body;
     double d = diff_t_[b];
     if (size_[b] > 1) {
         // Rotation moves a member at offset o by dTheta x o: along the unit vector n its
@@ -39,24 +34,32 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
     out.clear();
     const std::int64_t n = static_cast<std::int64_t>(radius_.size());
     const double dt = model_->time_step.time_step_s;
-    const std::uint64_t seed = model_->seed, step = static_cast<std::uint64_t>(step_);
+    const std::uint64_t seed = seed_, step = static_cast<std::uint64_t>(step_);
     double smallest = std::numeric_limits<double>::infinity();
-#pragma omp parallel reduction(min : smallest)
+    // No pair farther than this can be captured in this step: the largest capture distance
+    // plus the bridge range of the fastest pair (two monomers of the smallest radius).
+    // The fastest member: a monomer of the smallest radius, or a cluster member far from its
+    // centre (D_t + D_r |o|^2, the rotation included).
+    const double d_rel_max = 2 * max_member_diffusion_;
+    const double reach = 2 * max_radius_m_ + model_->max_capture_gap_m() + 12.0 * std::sqrt(d_rel_max * dt) * 1.01;
+    const double reach2 = reach * reach;
+#pragma omp parallel reduction(min : smallest) if (n >= model_->parallel_min_items)
     {
         std::vector<Candidate> local;
         std::vector<std::uint32_t> spanning;
 #pragma omp for schedule(static, omp_block) nowait
         for (std::int64_t ii = 0; ii < n; ++ii) {
             const std::uint32_t i = static_cast<std::uint32_t>(ii);
-            const std::uint32_t bi = body_[i];
-            for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k) {
+            const std::uint32_t bi = pos_[i].body;
+            for (std::uint64_t k = nbr_start_[i]; k < nbr_upper_end_[i]; ++k) {
                 const std::uint32_t j = nbr_[k];
-                if (j <= i) continue;
+                const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
+                const double r2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+                if (r2 > reach2) continue;  // too far for a capture or a bridge crossing
                 const double hc = capture_gap(i, j);
-                const Vec3 d = minimum_image({x_[i], y_[i], z_[i]}, {x_[j], y_[j], z_[j]});
-                const double r = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]);
+                const double r = std::sqrt(r2);
                 const double h1 = r - radius_[i] - radius_[j];
-                if (body_[j] == bi) {
+                if (pos_[j].body == bi) {
                     // Members of one body: a contact through the periodic boundary means the
                     // body meets its own image.
                     if (h1 <= hc) {
@@ -65,19 +68,18 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
                     }
                     continue;
                 }
-                smallest = std::min(smallest, h1 / std::min(radius_[i], radius_[j]));
                 if (h1 <= hc) {
                     local.push_back({i, j, false});
                     continue;
                 }
+                smallest = std::min(smallest, h1 / std::min(radius_[i], radius_[j]));
                 const Vec3 unit{d[0] / r, d[1] / r, d[2] / r};
                 const double d_rel = effective_diffusion(i, unit) + effective_diffusion(j, unit);
                 const double x1 = h1 - hc;
-                const double scale2 = d_rel * dt;
-                if (x1 * x1 > 144.0 * scale2) continue;  // crossing probability < e^-40
+                if (!bridge_crossing_possible(x1, d_rel, dt)) continue;
                 const Vec3 d0 = minimum_image({px_[i], py_[i], pz_[i]}, {px_[j], py_[j], pz_[j]});
                 const double x0 = std::sqrt(d0[0] * d0[0] + d0[1] * d0[1] + d0[2] * d0[2]) - radius_[i] - radius_[j] - hc;
-                const double p = x0 <= 0 ? 1.0 : std::exp(-x0 * x1 / scale2);
+                const double p = bridge_crossing_probability(x0, x1, d_rel, dt);
                 if (p < 1e-18) continue;
                 const auto bits = philox_block(seed, step, i, NoiseStream::capture, j);
                 if (uniform_open01(bits[0]) < p) local.push_back({i, j, true});
@@ -102,9 +104,9 @@ void Engine::shift_body(std::uint32_t b, const Vec3& s) {
     cy_[b] += s[1];
     cz_[b] += s[2];
     for (std::uint32_t k = b; k != npos; k = next_[k]) set_position_from_body(k);
-    cx_[b] -= box_ * std::floor(cx_[b] * inv_box_);
-    cy_[b] -= box_ * std::floor(cy_[b] * inv_box_);
-    cz_[b] -= box_ * std::floor(cz_[b] * inv_box_);
+    cx_[b] = wrap(cx_[b]);
+    cy_[b] = wrap(cy_[b]);
+    cz_[b] = wrap(cz_[b]);
 }
 
 void Engine::apply_captures(std::vector<Candidate>& candidates) {
@@ -113,17 +115,17 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
         moved.clear();
         for (const Candidate& c : candidates) {
             const std::uint32_t i = c.i, j = c.j;
-            const std::uint32_t bi = body_[i], bj = body_[j];
+            const std::uint32_t bi = pos_[i].body, bj = pos_[j].body;
             if (bi == bj) continue;
             const double R = radius_[i] + radius_[j] + capture_gap(i, j);
-            const Vec3 d_now = minimum_image({x_[i], y_[i], z_[i]}, {x_[j], y_[j], z_[j]});
+            const Vec3 d_now = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
             const double r_now = std::sqrt(d_now[0] * d_now[0] + d_now[1] * d_now[1] + d_now[2] * d_now[2]);
             bool placed = false;
             if (r_now < R && pass == 0) {
                 // Back both bodies along their displacements of this step to the moment the
                 // pair reached the capture distance: |d_prev + s (u_j - u_i)| = R.
-                const Vec3 ui = minimum_image({px_[i], py_[i], pz_[i]}, {x_[i], y_[i], z_[i]});
-                const Vec3 uj = minimum_image({px_[j], py_[j], pz_[j]}, {x_[j], y_[j], z_[j]});
+                const Vec3 ui = minimum_image({px_[i], py_[i], pz_[i]}, {pos_[i].x, pos_[i].y, pos_[i].z});
+                const Vec3 uj = minimum_image({px_[j], py_[j], pz_[j]}, {pos_[j].x, pos_[j].y, pos_[j].z});
                 const Vec3 del{uj[0] - ui[0], uj[1] - ui[1], uj[2] - ui[2]};
                 const Vec3 dp{d_now[0] - del[0], d_now[1] - del[1], d_now[2] - del[2]};
                 const double qa = del[0] * del[0] + del[1] * del[1] + del[2] * del[2];
@@ -148,19 +150,19 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
             }
             captures_.push_back({step_, i, j, bi, bj, size_[bi], size_[bj], c.by_bridge});
             merge_bodies(i, j);
-            moved.push_back(body_[i]);
+            moved.push_back(pos_[i].body);
         }
         // Shifts can bring other pairs inside their capture gap: bond those too, at contact.
         candidates.clear();
         std::sort(moved.begin(), moved.end());
         moved.erase(std::unique(moved.begin(), moved.end()), moved.end());
         for (std::uint32_t b0 : moved) {
-            const std::uint32_t b = body_[b0];
+            const std::uint32_t b = pos_[b0].body;
             for (std::uint32_t m = b; m != npos; m = next_[m])
                 for (std::uint64_t k = nbr_start_[m]; k < nbr_start_[m + 1]; ++k) {
                     const std::uint32_t o = nbr_[k];
-                    if (body_[o] == b) continue;
-                    const Vec3 d = minimum_image({x_[m], y_[m], z_[m]}, {x_[o], y_[o], z_[o]});
+                    if (pos_[o].body == b) continue;
+                    const Vec3 d = minimum_image({pos_[m].x, pos_[m].y, pos_[m].z}, {pos_[o].x, pos_[o].y, pos_[o].z});
                     const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[m] - radius_[o];
                     if (gap < capture_gap(m, o) * (1 - 1e-9)) candidates.push_back({std::min(m, o), std::max(m, o), false});
                 }
@@ -173,25 +175,25 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
                          candidates.end());
     }
     // Bodies absorbed into others leave the list.
-    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return body_[b] != b; }),
+    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
                   bodies_.end());
 }
 
 void Engine::merge_bodies(std::uint32_t i, std::uint32_t j) {
-    std::uint32_t keep = body_[i], gone = body_[j];
+    std::uint32_t keep = pos_[i].body, gone = pos_[j].body;
     std::uint32_t p = i, q = j;  // p in keep, q in gone
     if (gone < keep) {
         std::swap(keep, gone);
         std::swap(p, q);
     }
     // Offsets of the absorbed members in the kept body's frame, through the contact pair.
-    const Vec3 d = minimum_image({x_[p], y_[p], z_[p]}, {x_[q], y_[q], z_[q]});
+    const Vec3 d = minimum_image({pos_[p].x, pos_[p].y, pos_[p].z}, {pos_[q].x, pos_[q].y, pos_[q].z});
     const double qx = ox_[q], qy = oy_[q], qz = oz_[q];
     for (std::uint32_t k = gone; k != npos; k = next_[k]) {
         ox_[k] = ox_[p] + d[0] + (ox_[k] - qx);
         oy_[k] = oy_[p] + d[1] + (oy_[k] - qy);
         oz_[k] = oz_[p] + d[2] + (oz_[k] - qz);
-        body_[k] = keep;
+        pos_[k].body = keep;
     }
     // Merge the two member lists, keeping id order.
     std::uint32_t a = keep, b = gone, head = npos, tail = npos;
@@ -228,9 +230,9 @@ void Engine::merge_bodies(std::uint32_t i, std::uint32_t j) {
     cy_[keep] += my;
     cz_[keep] += mz;
     for (std::uint32_t k = keep; k != npos; k = next_[k]) set_position_from_body(k);
-    cx_[keep] -= box_ * std::floor(cx_[keep] * inv_box_);
-    cy_[keep] -= box_ * std::floor(cy_[keep] * inv_box_);
-    cz_[keep] -= box_ * std::floor(cz_[keep] * inv_box_);
+    cx_[keep] = wrap(cx_[keep]);
+    cy_[keep] = wrap(cy_[keep]);
+    cz_[keep] = wrap(cz_[keep]);
     update_mobility(keep);
 }
 
@@ -241,20 +243,22 @@ void Engine::bond_initial_contacts() {
         for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k) {
             const std::uint32_t j = nbr_[k];
             if (j <= i) continue;
-            const Vec3 d = minimum_image({x_[i], y_[i], z_[i]}, {x_[j], y_[j], z_[j]});
+            const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
             const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[i] - radius_[j];
             if (gap <= capture_gap(i, j)) found.push_back({i, j, false});
         }
     for (const Candidate& c : found) {
-        if (body_[c.i] == body_[c.j]) continue;
+        if (pos_[c.i].body == pos_[c.j].body) continue;
         merge_bodies(c.i, c.j);
         ++bonded_at_start_;
     }
-    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return body_[b] != b; }),
+    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
                   bodies_.end());
-    px_ = x_;
-    py_ = y_;
-    pz_ = z_;
+    for (std::size_t i = 0; i < pos_.size(); ++i) {
+        px_[i] = pos_[i].x;
+        py_[i] = pos_[i].y;
+        pz_[i] = pos_[i].z;
+    }
 }
 
 }  // namespace brownfloc::sim

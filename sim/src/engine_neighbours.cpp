@@ -20,13 +20,10 @@ bool Engine::neighbour_list_stale() const {
     const double limit2 = limit * limit;
     const std::int64_t n = static_cast<std::int64_t>(radius_.size());
     int stale = 0;
-#pragma omp parallel for schedule(static, omp_block) reduction(| : stale)
+#pragma omp parallel for schedule(static, omp_block) reduction(| : stale) if (n >= model_->parallel_min_items)
     for (std::int64_t ii = 0; ii < n; ++ii) {
         const std::size_t i = static_cast<std::size_t>(ii);
-        double dx = x_[i] - bx_[i], dy = y_[i] - by_[i], dz = z_[i] - bz_[i];
-        dx -= box_ * std::nearbyint(dx * inv_box_);
-        dy -= box_ * std::nearbyint(dy * inv_box_);
-        dz -= box_ * std::nearbyint(dz * inv_box_);
+        const double dx = fold(pos_[i].x - bx_[i]), dy = fold(pos_[i].y - by_[i]), dz = fold(pos_[i].z - bz_[i]);
         if (dx * dx + dy * dy + dz * dz > limit2) stale |= 1;
     }
     return stale != 0;
@@ -39,79 +36,82 @@ void Engine::build_neighbour_list() {
     const int m = static_cast<int>(std::floor(box_ / reach));
     const double extra = list_radius_extra_m_;
     nbr_start_.assign(n + 1, 0);
+    nbr_upper_end_.assign(n, 0);
 
     auto within = [&](std::size_t i, std::size_t j) {
-        double dx = x_[j] - x_[i], dy = y_[j] - y_[i], dz = z_[j] - z_[i];
-        dx -= box_ * std::nearbyint(dx * inv_box_);
-        dy -= box_ * std::nearbyint(dy * inv_box_);
-        dz -= box_ * std::nearbyint(dz * inv_box_);
+        const double dx = fold(pos_[j].x - pos_[i].x), dy = fold(pos_[j].y - pos_[i].y), dz = fold(pos_[j].z - pos_[i].z);
         const double r = radius_[i] + radius_[j] + extra;
         return dx * dx + dy * dy + dz * dz < r * r;
     };
 
-    if (m < 3) {
-        // Small box: every pair, in id order.
-        for (std::size_t i = 0; i < n; ++i) {
-            std::uint64_t c = 0;
-            for (std::size_t j = 0; j < n; ++j)
-                if (j != i && within(i, j)) ++c;
-            nbr_start_[i + 1] = nbr_start_[i] + c;
-        }
-        nbr_.resize(nbr_start_[n]);
-        for (std::size_t i = 0; i < n; ++i) {
-            std::uint64_t k = nbr_start_[i];
-            for (std::size_t j = 0; j < n; ++j)
-                if (j != i && within(i, j)) nbr_[k++] = static_cast<std::uint32_t>(j);
-        }
-    } else {
-        const double cells_per_m = m / box_;
-        auto cell_coord = [&](double v) { return std::min(m - 1, std::max(0, static_cast<int>(v * cells_per_m))); };
-        const std::size_t cells = static_cast<std::size_t>(m) * m * m;
-        std::vector<std::uint32_t> cell_of(n);
-        std::vector<std::uint32_t> cell_start(cells + 1, 0);
-        for (std::size_t i = 0; i < n; ++i) {
-            const std::size_t c = (static_cast<std::size_t>(cell_coord(z_[i])) * m + cell_coord(y_[i])) * m + cell_coord(x_[i]);
-            cell_of[i] = static_cast<std::uint32_t>(c);
-            ++cell_start[c + 1];
-        }
-        std::partial_sum(cell_start.begin(), cell_start.end(), cell_start.begin());
-        std::vector<std::uint32_t> in_cell(n);
-        {
-            std::vector<std::uint32_t> fill(cell_start.begin(), cell_start.end() - 1);
-            for (std::size_t i = 0; i < n; ++i) in_cell[fill[cell_of[i]]++] = static_cast<std::uint32_t>(i);
-        }
-        auto scan = [&](std::size_t i, auto&& visit) {
-            const std::uint32_t c = cell_of[i];
-            const int cx = static_cast<int>(c % m), cy = static_cast<int>((c / m) % m), cz = static_cast<int>(c / (static_cast<std::size_t>(m) * m));
-            for (int dz = -1; dz <= 1; ++dz)
-                for (int dy = -1; dy <= 1; ++dy)
-                    for (int dx = -1; dx <= 1; ++dx) {
-                        const int ax = (cx + dx + m) % m, ay = (cy + dy + m) % m, az = (cz + dz + m) % m;
-                        const std::size_t cc = (static_cast<std::size_t>(az) * m + ay) * m + ax;
-                        for (std::uint32_t k = cell_start[cc]; k < cell_start[cc + 1]; ++k) {
-                            const std::uint32_t j = in_cell[k];
-                            if (j != i && within(i, j)) visit(j);
-                        }
-                    }
-        };
-        const std::int64_t ni = static_cast<std::int64_t>(n);
-#pragma omp parallel for schedule(static, omp_block)
-        for (std::int64_t ii = 0; ii < ni; ++ii) {
-            std::uint64_t c = 0;
-            scan(static_cast<std::size_t>(ii), [&](std::uint32_t) { ++c; });
-            nbr_start_[static_cast<std::size_t>(ii) + 1] = c;
-        }
-        std::partial_sum(nbr_start_.begin(), nbr_start_.end(), nbr_start_.begin());
-        nbr_.resize(nbr_start_[n]);
-#pragma omp parallel for schedule(static, omp_block)
-        for (std::int64_t ii = 0; ii < ni; ++ii) {
-            std::uint64_t k = nbr_start_[static_cast<std::size_t>(ii)];
-            scan(static_cast<std::size_t>(ii), [&](std::uint32_t j) { nbr_[k++] = j; });
-        }
+    // Cell grid (a single cell holding everything when the box is under 3 list ranges).
+    const int cells_per_edge = m >= 3 ? m : 1;
+    const double cells_per_m = cells_per_edge / box_;
+    auto cell_coord = [&](double v) { return std::min(cells_per_edge - 1, std::max(0, static_cast<int>(v * cells_per_m))); };
+    const std::size_t cells = static_cast<std::size_t>(cells_per_edge) * cells_per_edge * cells_per_edge;
+    std::vector<std::uint32_t> cell_of(n);
+    std::vector<std::uint32_t> cell_start(cells + 1, 0);
+    for (std::size_t i = 0; i < n; ++i) {
+        const std::size_t c = (static_cast<std::size_t>(cell_coord(pos_[i].z)) * cells_per_edge + cell_coord(pos_[i].y)) *
+                                  cells_per_edge + cell_coord(pos_[i].x);
+        cell_of[i] = static_cast<std::uint32_t>(c);
+        ++cell_start[c + 1];
     }
-    bx_ = x_;
-    by_ = y_;
-    bz_ = z_;
+    std::partial_sum(cell_start.begin(), cell_start.end(), cell_start.begin());
+    std::vector<std::uint32_t> in_cell(n);
+    {
+        std::vector<std::uint32_t> fill(cell_start.begin(), cell_start.end() - 1);
+        for (std::size_t i = 0; i < n; ++i) in_cell[fill[cell_of[i]]++] = static_cast<std::uint32_t>(i);
+    }
+    auto visit_cell = [&](std::size_t i, std::size_t cc, auto&& visit) {
+        for (std::uint32_t k = cell_start[cc]; k < cell_start[cc + 1]; ++k) {
+            const std::uint32_t j = in_cell[k];
+            if (j != i && within(i, j)) visit(j);
+        }
+    };
+    // The 27 cells around i's cell in a fixed order (one cell for a small box).
+    auto scan = [&](std::size_t i, auto&& visit) {
+        if (cells_per_edge == 1) return visit_cell(i, 0, visit);
+        const std::uint32_t c = cell_of[i];
+        const int e = cells_per_edge;
+        const int cx = static_cast<int>(c % e), cy = static_cast<int>((c / e) % e),
+                  cz = static_cast<int>(c / (static_cast<std::size_t>(e) * e));
+        for (int dz = -1; dz <= 1; ++dz)
+            for (int dy = -1; dy <= 1; ++dy)
+                for (int dx = -1; dx <= 1; ++dx) {
+                    const int ax = (cx + dx + e) % e, ay = (cy + dy + e) % e, az = (cz + dz + e) % e;
+                    visit_cell(i, (static_cast<std::size_t>(az) * e + ay) * e + ax, visit);
+                }
+    };
+    const std::int64_t ni = static_cast<std::int64_t>(n);
+    std::vector<std::uint32_t> upper_count(n);
+#pragma omp parallel for schedule(static, omp_block) if (ni >= model_->parallel_min_items)
+    for (std::int64_t ii = 0; ii < ni; ++ii) {
+        const auto i = static_cast<std::size_t>(ii);
+        std::uint64_t c = 0;
+        std::uint32_t up = 0;
+        scan(i, [&](std::uint32_t j) {
+            ++c;
+            if (j > i) ++up;
+        });
+        nbr_start_[i + 1] = c;
+        upper_count[i] = up;
+    }
+    std::partial_sum(nbr_start_.begin(), nbr_start_.end(), nbr_start_.begin());
+    nbr_.resize(nbr_start_[n]);
+    // Each particle's neighbours with larger ids first (the capture check visits only those).
+#pragma omp parallel for schedule(static, omp_block) if (ni >= model_->parallel_min_items)
+    for (std::int64_t ii = 0; ii < ni; ++ii) {
+        const auto i = static_cast<std::size_t>(ii);
+        std::uint64_t upper = nbr_start_[i], lower = nbr_start_[i] + upper_count[i];
+        nbr_upper_end_[i] = lower;
+        scan(i, [&](std::uint32_t j) { nbr_[j > i ? upper++ : lower++] = j; });
+    }
+    for (std::size_t i = 0; i < n; ++i) {
+        bx_[i] = pos_[i].x;
+        by_[i] = pos_[i].y;
+        bz_[i] = pos_[i].z;
+    }
 }
 
 double Engine::smallest_relative_gap() const {
@@ -120,7 +120,7 @@ double Engine::smallest_relative_gap() const {
     for (std::size_t i = 0; i < n; ++i)
         for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k) {
             const std::uint32_t j = nbr_[k];
-            const Vec3 d = minimum_image({x_[i], y_[i], z_[i]}, {x_[j], y_[j], z_[j]});
+            const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
             const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[i] - radius_[j];
             smallest = std::min(smallest, gap / std::min(radius_[i], radius_[j]));
         }

@@ -67,6 +67,25 @@ double log_ratio_at_capture(const PairInteraction& pair, double capture_gap_m) {
     return potentials::log_stability_ratio(pair, capture_gap_m, false) + std::log(contact / (contact + capture_gap_m));
 }
 
+// The gap inside which capture is at least 99 % certain (see PairKind::commit_gap_m):
+// p_capture(h) = [W(h)/r] / [W(h_c)/R_c] with W(h) = r int_r^inf e^(U/kT) r'^-2 dr' the
+// Fuchs integral taken from gap h (no hydrodynamics). Bisection in ln h to 1e-6.
+double commitment_gap(const PairInteraction& pair, double capture_gap_m, double cutoff_gap_m) {
+    constexpr double certain = 0.99;
+    const double contact = pair.radius1_m() + pair.radius2_m();
+    const double log_tail_c = potentials::log_stability_ratio(pair, capture_gap_m, false) - std::log(contact + capture_gap_m);
+    auto capture_probability = [&](double h) {
+        return std::exp(potentials::log_stability_ratio(pair, h, false) - std::log(contact + h) - log_tail_c);
+    };
+    double lo = capture_gap_m, hi = std::max(cutoff_gap_m, capture_gap_m * 1.001);
+    if (capture_probability(hi) >= certain) return hi;
+    for (int it = 0; it < 60 && hi / lo > 1 + 1e-6; ++it) {
+        const double mid = std::sqrt(lo * hi);
+        if (capture_probability(mid) >= certain) lo = mid; else hi = mid;
+    }
+    return lo;
+}
+
 }  // namespace
 
 PairKind analyse_pair_kind(const PairInteraction& pair, std::size_t species_i, std::size_t species_j, double min_gap_m,
@@ -118,10 +137,12 @@ PairKind analyse_pair_kind(const PairInteraction& pair, std::size_t species_i, s
         if (std::abs(pair.energy_kT(grid[k])) > cutoff_energy_kT) last_significant = k;
     kind.cutoff_gap_m = grid[std::min(last_significant + 1, grid.size() - 1)];
     kind.interacting = kind.cutoff_gap_m > kind.capture_gap_m;
+    kind.commit_gap_m = commitment_gap(pair, kind.capture_gap_m, kind.cutoff_gap_m);
     for (double h : grid) {
         if (h > kind.cutoff_gap_m) break;
-        kind.max_force_N = std::max(kind.max_force_N, std::abs(pair.force_N(h)));
+        if (h >= kind.commit_gap_m) kind.max_force_N = std::max(kind.max_force_N, std::abs(pair.force_N(h)));
     }
+    kind.max_force_N = std::max(kind.max_force_N, std::abs(pair.force_N(kind.commit_gap_m)));
 
     // Length scales.
     const auto& model = pair.model();

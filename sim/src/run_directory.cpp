@@ -36,6 +36,7 @@ RunDirectory::RunDirectory(const fs::path& dir, bool overwrite) : dir_(dir) {
     locked_ = true;
     for (const char* name : run_files) {
         if (fs::exists(dir_ / name) && !overwrite) {
+            fs::remove(lock, ec);  // the destructor does not run when the constructor throws
             throw EnvironmentError(dir_.string() + ": holds another run (" + name +
                                    "); choose another directory with -o or pass --overwrite");
         }

@@ -13,6 +13,7 @@
 #include "sha256.hpp"
 #include "sim/engine.hpp"
 #include "sim/engine_setup.hpp"
+#include "sim/rate_fit.hpp"
 #include "sim/run_recorder.hpp"
 
 namespace brownfloc::sim {
@@ -169,6 +170,20 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     if (msg) {
         *msg << "  done: " << engine.steps_taken() << " steps in " << short_number(timing.wall_time_s) << " s; "
              << engine.bodies().size() << " clusters; results in " << result.output_dir << "\n";
+        const RateFit fit = recorder.total_rate();
+        const double w_capture = std::exp(plan.model->pair_kinds.front().log_stability_ratio_at_capture);
+        if (fit.rate_m3_per_s && fit.ci95_m3_per_s && *fit.rate_m3_per_s > 0) {
+            const double k_fast = plan.mean_fast_rate_m3_per_s;
+            *msg << "  measured stability ratio " << short_number(k_fast / *fit.rate_m3_per_s) << " (95 % interval "
+                 << short_number(k_fast / (*fit.ci95_m3_per_s)[1]) << "-" << short_number(k_fast / (*fit.ci95_m3_per_s)[0])
+                 << ", " << fit.events << " events); Fuchs, from the capture gap, without hydrodynamics: "
+                 << short_number(w_capture) << "\n";
+        } else {
+            *msg << "  no measured rate: " << fit.note << "\n";
+        }
+        const analysis::SizeStatistics last = recorder.last_statistics();
+        *msg << "  mean cluster size " << short_number(last.mean_size) << " (weight-average " << short_number(last.weight_mean_size)
+             << ", largest " << last.largest << ")\n";
     }
     return result;
 }

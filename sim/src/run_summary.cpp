@@ -89,7 +89,7 @@ Json run_summary_json(const Scenario& scenario, const RunPlan& plan, const Engin
     j.set_number_or_null("fractal_dimension", fractal.dimension, fractal.note);
     j.set_number_or_null("fractal_dimension_error", fractal.dimension_error, fractal.note);
     j.set_number_or_null("fractal_prefactor", fractal.prefactor, fractal.note);
-    j.set("fractal_dimension_note", fractal.note);
+    if (fractal.dimension && std::isfinite(*fractal.dimension)) j.set("fractal_dimension_note", fractal.note);  // else written above
     j.set("fractal_clusters_used", fractal.clusters_used);
 
     j.set("bonded_at_start", engine.bonded_at_start());

@@ -11,7 +11,8 @@ namespace brownfloc::sim {
 std::string time_step_rule_text() {
     return "dt is the largest step for which, for every species pair inside the cutoff (monomers of the smallest "
            "radii), the rms relative displacement along the line of centres sqrt(2 (D_i + D_j) dt) and the drift "
-           "displacement ((D_i + D_j)/kT) max|F| dt are each <= l/10, where l is the shortest of the Debye length, "
+           "displacement ((D_i + D_j)/kT) max|F| dt are each <= l/10, max|F| taken over the gaps from which the pair "
+           "can still escape (capture probability below 99 %) out to the cutoff, where l is the shortest of the Debye length, "
            "the barrier width (U >= U_max - 1 kT) and the secondary-well width (U <= U_min + 1 kT), or a/2 for a "
            "pair with none of them (a = the smaller median radius); capped by max_time_step_s";
 }

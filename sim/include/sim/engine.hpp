@@ -15,8 +15,10 @@
 //
 // Not thread-safe itself: one thread calls step(); it parallelises inside.
 #include <array>
+#include <cmath>
 #include <cstdint>
 #include <memory>
+#include <optional>
 #include <span>
 #include <vector>
 
@@ -45,7 +47,9 @@ struct CaptureEvent {
 class Engine {
 public:
     // Pairs already within their capture gap are bonded at once (counted in bonded_at_start).
-    Engine(std::shared_ptr<const EngineModel> model, InitialParticles particles);
+    // seed replaces the model's seed for the noise (tests run many engines on one model).
+    Engine(std::shared_ptr<const EngineModel> model, InitialParticles particles,
+           std::optional<std::uint64_t> seed = std::nullopt);
 
     void step();
 
@@ -58,11 +62,11 @@ public:
     [[nodiscard]] std::int64_t list_builds() const { return list_builds_; }
 
     // Wrapped position of particle i [m].
-    [[nodiscard]] Vec3 position_m(std::uint32_t i) const { return {x_[i], y_[i], z_[i]}; }
+    [[nodiscard]] Vec3 position_m(std::uint32_t i) const { return {pos_[i].x, pos_[i].y, pos_[i].z}; }
     [[nodiscard]] double radius_m(std::uint32_t i) const { return radius_[i]; }
-    [[nodiscard]] std::uint32_t species(std::uint32_t i) const { return species_[i]; }
+    [[nodiscard]] std::uint32_t species(std::uint32_t i) const { return pos_[i].species; }
     // Body (bonded cluster) of particle i: its smallest member id.
-    [[nodiscard]] std::uint32_t body_of(std::uint32_t i) const { return body_[i]; }
+    [[nodiscard]] std::uint32_t body_of(std::uint32_t i) const { return pos_[i].body; }
     // Body ids in ascending order.
     [[nodiscard]] const std::vector<std::uint32_t>& bodies() const { return bodies_; }
     [[nodiscard]] std::uint32_t body_size(std::uint32_t b) const { return size_[b]; }
@@ -79,8 +83,8 @@ public:
 
     // Every bond formed so far, in the order formed.
     [[nodiscard]] const std::vector<CaptureEvent>& captures() const { return captures_; }
-    // Smallest gap between particles of different bodies found by the last capture check,
-    // relative to the smaller radius (negative = overlap); +inf when none was in range.
+    // Smallest gap between particles of different bodies that were not captured in the last
+    // step, relative to the smaller radius; +inf when none was in range.
     [[nodiscard]] double min_relative_gap_last_step() const { return min_relative_gap_; }
     // Smallest such value over the whole run.
     [[nodiscard]] double min_relative_gap_ever() const { return min_relative_gap_ever_; }
@@ -96,12 +100,13 @@ public:
     template <class Visit>
     void for_each_listed_pair(Visit&& visit) const {
         for (std::uint32_t i = 0; i < radius_.size(); ++i)
-            for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k)
-                if (nbr_[k] > i) visit(i, nbr_[k]);
+            for (std::uint64_t k = nbr_start_[i]; k < nbr_upper_end_[i]; ++k) visit(i, nbr_[k]);
     }
 
-    // Minimum-image vector from a to b [m].
-    [[nodiscard]] Vec3 minimum_image(const Vec3& a, const Vec3& b) const;
+    // Minimum-image vector from a to b [m], both inside the box [0, L)^3.
+    [[nodiscard]] Vec3 minimum_image(const Vec3& a, const Vec3& b) const {
+        return {fold(b[0] - a[0]), fold(b[1] - a[1]), fold(b[2] - a[2])};
+    }
 
 private:
     struct Candidate {
@@ -118,29 +123,68 @@ private:
     void update_mobility(std::uint32_t b);
     void shift_body(std::uint32_t b, const Vec3& shift_m);
     [[nodiscard]] double effective_diffusion(std::uint32_t i, const Vec3& unit) const;
-    [[nodiscard]] double force_between(std::uint32_t i, std::uint32_t j, double gap_m) const;
-    [[nodiscard]] double capture_gap(std::uint32_t i, std::uint32_t j) const;
+    // A coordinate difference of two points inside the box, folded to (-L/2, L/2]. One
+    // correction suffices because |d| < L (no library call: nearbyint and floor are calls on
+    // baseline x86-64 without SSE4.1).
+    [[nodiscard]] double fold(double d) const {
+        if (d > half_box_) return d - box_;
+        if (d < -half_box_) return d + box_;
+        return d;
+    }
+    // A coordinate brought back into [0, L).
+    [[nodiscard]] double wrap(double c) const {
+        if (c >= box_) {
+            c -= box_;
+            if (c >= box_) c -= box_ * std::floor(c * inv_box_);
+        } else if (c < 0) {
+            c += box_;
+            if (c < 0) c -= box_ * std::floor(c * inv_box_);
+        }
+        return c < box_ ? c : 0.0;  // c + L can round up to L for a tiny negative c
+    }
+    // -dU/dh [N] between particles i and j at gap_m (0 beyond the pair's cutoff).
+    [[nodiscard]] double force_between(std::uint32_t i, std::uint32_t j, double gap_m) const {
+        const EngineModel& m = *model_;
+        if (m.radius_free) {
+            const std::uint32_t si = pos_[i].species, sj = pos_[j].species;
+            if (gap_m >= m.pair_kind(si, sj).cutoff_gap_m) return 0.0;
+            return m.radius_free->force_N(gap_m, {radius_[i], radius_[j], std::sqrt(m.species_hamaker_J[si] * m.species_hamaker_J[sj]),
+                                                  m.species_double_layer_potential_V[si], m.species_double_layer_potential_V[sj]});
+        }
+        const std::size_t k = m.pair_index(pos_[i].species, pos_[j].species);
+        const auto& table = m.pair_tables[k];
+        if (!table || gap_m >= m.pair_kinds[k].cutoff_gap_m) return 0.0;
+        return table->force_N(gap_m);
+    }
+    [[nodiscard]] double capture_gap(std::uint32_t i, std::uint32_t j) const {
+        return model_->pair_kind(pos_[i].species, pos_[j].species).capture_gap_m;
+    }
     void bond_initial_contacts();
     void set_position_from_body(std::uint32_t i);
 
     std::shared_ptr<const EngineModel> model_;
-    double box_ = 0, inv_box_ = 0;
+    std::uint64_t seed_ = 0;
+    double box_ = 0, inv_box_ = 0, half_box_ = 0;
     std::int64_t step_ = 0;
     std::int64_t bonded_at_start_ = 0;
     std::int64_t list_builds_ = 0;
     std::int64_t first_spanning_step_ = -1;
 
     // Per particle.
-    std::vector<double> x_, y_, z_;        // wrapped positions
+    // Wrapped position, body id (smallest member) and species together: the pair loops
+    // touch one 32-byte record per neighbour.
+    struct ParticleRecord {
+        double x, y, z;
+        std::uint32_t body, species;
+    };
+    std::vector<ParticleRecord> pos_;
     std::vector<double> px_, py_, pz_;     // positions at the start of the step
     std::vector<double> bx_, by_, bz_;     // positions when the list was built
     std::vector<double> ox_, oy_, oz_;     // offset from the body centre
     std::vector<double> fx_, fy_, fz_;     // force from other bodies [N]
     std::vector<double> radius_;
-    std::vector<std::uint32_t> species_;
-    std::vector<std::uint32_t> body_;      // body id (smallest member)
     std::vector<std::uint32_t> next_;      // next member of the same body in id order; npos at the end
-    // Per body, indexed by body id (valid where body_[b] == b).
+    // Per body, indexed by body id (valid where pos_[b].body == b).
     std::vector<double> cx_, cy_, cz_;     // centre (a^3-weighted mean of member centres), wrapped
     std::vector<std::uint32_t> size_;
     std::vector<double> diff_t_, diff_r_, hydro_radius_;
@@ -151,10 +195,14 @@ private:
 
     // Neighbour list (full, CSR): neighbours of i are nbr_[nbr_start_[i] .. nbr_start_[i+1]).
     std::vector<std::uint64_t> nbr_start_;
+    std::vector<std::uint64_t> nbr_upper_end_;  // neighbours of i with larger ids: nbr_start_[i] .. this
     std::vector<std::uint32_t> nbr_;
     double list_radius_extra_m_ = 0;  // list range beyond a_i + a_j
     double max_radius_m_ = 0, min_radius_m_ = 0;
-    bool bodies_moved_by_capture_ = false;
+    // Largest D_t + D_r max|o|^2 of any body so far [m^2/s] (never decreases: a safe bound).
+    double max_member_diffusion_ = 0;
+    bool moved_far_ = false;
+    bool captured_last_step_ = true;  // check the list in full before the first step  // some particle moved over half the skin since the list was built
 
     std::vector<CaptureEvent> captures_;
     double min_relative_gap_ = 0, min_relative_gap_ever_ = 0;

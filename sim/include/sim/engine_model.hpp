@@ -41,6 +41,10 @@ struct EngineModel {
     TimeStep time_step;
     double skin_m = 0;  // Verlet-list skin
     std::uint64_t seed = 1;
+    // Loops over fewer particles (or bodies) than this run on one thread: the fork and
+    // barrier would cost more than the work, and far more when the cores are shared.
+    // Results do not depend on it (tests lower it to exercise threads on small systems).
+    std::int64_t parallel_min_items = 8192;
 
     [[nodiscard]] std::size_t pair_index(std::size_t i, std::size_t j) const {
         if (i > j) std::swap(i, j);

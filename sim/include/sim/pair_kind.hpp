@@ -27,7 +27,13 @@ struct PairKind {
     std::optional<double> debye_length_m;  // only when the double layer acts
     std::optional<double> barrier_width_m;  // width of the region where U >= U_max - 1 kT
     std::optional<double> well_width_m;     // width of the secondary well where U <= U_min + 1 kT
-    double max_force_N = 0;                 // max |F| on [capture gap, cutoff]
+    // Commitment gap [m]: inside it a pair is captured with probability >= 99 % before it
+    // escapes to infinity (the splitting probability of radial diffusion in U,
+    // p_capture(r) = int_r^inf e^(U/kT) r'^-2 dr' / int_{R_c}^inf e^(U/kT) r'^-2 dr').
+    // Between it and the capture gap the step need not resolve the drift: every path there
+    // ends in capture.
+    double commit_gap_m = 0;
+    double max_force_N = 0;                 // max |F| on [commitment gap, cutoff]
 
     // Barrier and secondary minimum as in `dlvo` (kT; 0 when absent).
     double barrier_kT = 0;

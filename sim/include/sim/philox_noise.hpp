@@ -29,15 +29,18 @@
 // On top of that the outputs take 2^32 equiprobable values (the CDF steps by 2^-32) and
 // |z| <= 6.34.
 //
-// Cost (tests/bench/noise.bench.cpp; one core of the 2-core build machine, g++ 12 -O3,
-// baseline x86-64): Philox block plus 4 fast normals ~19 ns, plus 4 Box-Muller normals
-// ~80 ns, Philox block alone ~6 ns. Philox and this transform are latency-bound, so
-// the transform uses Estrin's scheme and keeps to ~25 instructions per normal.
+// Cost (tests/bench/noise.bench.cpp; one core of the 2-core build machine, AMD EPYC at
+// ~3.3 GHz, g++ 12 -O3, baseline x86-64, the other core busy): block + 4 fast normals
+// 16-20 ns, block + 4 Box-Muller normals 67-75 ns, the bare block 5.9 ns. Philox and the
+// transform are latency-bound: hence Estrin's scheme and ~22 instructions per normal (a
+// two-lane SIMD version measured slower).
 //
 // Thread safety: every function is pure and thread-safe. The quantile table is a
 // function-local static (thread-safe initialisation, built on first use). Nothing depends
 // on thread count or order, and no -ffast-math is involved, so outputs are bitwise
-// reproducible on a given platform.
+// reproducible on a given platform. Across platforms the last bit may differ: the quantile
+// table and the exact path call the C library's log and exp, and where the base instruction
+// set has FMA (AArch64) g++ contracts a * b + c by default.
 #include <array>
 #include <bit>
 #include <cassert>
@@ -147,6 +150,16 @@ using NormalQuantileTable = std::array<NormalQuantileRow, normal_intervals>;
     const detail::NormalQuantileRow* table = detail::normal_quantile_table().data();
     return {detail::normal_from_bits(w[0], table), detail::normal_from_bits(w[1], table),
             detail::normal_from_bits(w[2], table), detail::normal_from_bits(w[3], table)};
+}
+
+// Three of the four normals above (words 0-2), for a translation step: skips the fourth
+// transform. Pure and thread-safe.
+[[nodiscard]] inline std::array<double, 4> standard_normals3(std::uint64_t seed, std::uint64_t step,
+                                                             std::uint32_t body, NoiseStream stream) {
+    const std::array<std::uint32_t, 4> w = philox_block(seed, step, body, stream);
+    const detail::NormalQuantileRow* table = detail::normal_quantile_table().data();
+    return {detail::normal_from_bits(w[0], table), detail::normal_from_bits(w[1], table),
+            detail::normal_from_bits(w[2], table), 0.0};
 }
 
 // Four independent N(0, 1) from the same block by double-precision Box-Muller on 32-bit

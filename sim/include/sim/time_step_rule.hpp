@@ -6,7 +6,9 @@
 //   dt = the largest step with, for every pair inside the cutoff (monomers of the smallest
 //       radii, the fastest bodies), the rms relative displacement along the line of
 //       centres sqrt(2 D_rel dt) <= l/10 and the drift displacement
-//       (D_rel/kT) max|F| dt <= l/10, D_rel = D_i + D_j;
+//       (D_rel/kT) max|F| dt <= l/10, D_rel = D_i + D_j, with max|F| over the gaps from
+//       which the pair can still escape (PairKind::commit_gap_m, capture probability below
+//       99 %) out to the cutoff: closer in, every path ends in capture whatever the step;
 //   capped by [run] max_time_step_s. A user's [run] time_step_s replaces dt after the same
 //   check is reported (it may exceed the rule's step: that is the user's choice, and is said).
 #include <optional>
