@@ -103,6 +103,10 @@ void Engine::update_mobility(std::uint32_t b) {
     hydro_radius_[b] = r_h;
     diff_t_[b] = kT / zeta_t;
     diff_r_[b] = kT / zeta_r;
+    if (spans_[b]) {
+        // Bonded to its own periodic image: an unbounded network, which cannot diffuse.
+        diff_t_[b] = diff_r_[b] = 0.0;
+    }
     mob_t_[b] = dt / zeta_t;  // displacement per newton
     mob_r_[b] = dt / zeta_r;  // rotation angle per newton metre
     amp_t_[b] = std::sqrt(2 * diff_t_[b] * dt);

@@ -14,6 +14,12 @@ namespace {
 constexpr int omp_block = 256;
 constexpr std::uint32_t npos = 0xFFFFFFFFu;
 constexpr int overlap_passes = 16;
+
+// The share of a shift taken by the first of two bodies: its part of the summed mobility
+// (half each when both are immobile, e.g. two box-spanning networks).
+double share(double d_first, double d_second) {
+    return d_first + d_second > 0 ? d_first / (d_first + d_second) : 0.5;
+}
 }  // namespace
 
 double Engine::effective_diffusion(std::uint32_t i, const Vec3& unit) const {
@@ -36,10 +42,10 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
     const double dt = model_->time_step.time_step_s;
     const std::uint64_t seed = seed_, step = static_cast<std::uint64_t>(step_);
     double smallest = std::numeric_limits<double>::infinity();
+    std::vector<std::uint32_t> spanning_found;
     // No pair farther than this can be captured in this step: the largest capture distance
-    // plus the bridge range of the fastest pair (two monomers of the smallest radius).
-    // The fastest member: a monomer of the smallest radius, or a cluster member far from its
-    // centre (D_t + D_r |o|^2, the rotation included).
+    // plus the bridge range of the fastest member (a monomer of the smallest radius, or a
+    // cluster member far from its centre: D_t + D_r |o|^2, the rotation included).
     const double d_rel_max = 2 * max_member_diffusion_;
     const double reach = 2 * max_radius_m_ + model_->max_capture_gap_m() + 12.0 * std::sqrt(d_rel_max * dt) * 1.01;
     const double reach2 = reach * reach;
@@ -88,13 +94,19 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
 #pragma omp critical(brownfloc_capture_merge)
         {
             out.insert(out.end(), local.begin(), local.end());
-            for (std::uint32_t b : spanning) spans_[b] = 1;
-            if (!spanning.empty() && first_spanning_step_ < 0) first_spanning_step_ = step_;
+            spanning_found.insert(spanning_found.end(), spanning.begin(), spanning.end());
         }
     }
     std::sort(out.begin(), out.end(), [](const Candidate& a, const Candidate& b) {
         return a.i != b.i ? a.i < b.i : a.j < b.j;
     });
+    std::sort(spanning_found.begin(), spanning_found.end());
+    for (std::uint32_t b : spanning_found) {
+        if (spans_[b]) continue;
+        spans_[b] = 1;
+        update_mobility(b);  // now immobile
+        if (first_spanning_step_ < 0) first_spanning_step_ = step_;
+    }
     min_relative_gap_ = smallest;
     min_relative_gap_ever_ = std::min(min_relative_gap_ever_, smallest);
 }
@@ -121,6 +133,7 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
             const Vec3 d_now = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
             const double r_now = std::sqrt(d_now[0] * d_now[0] + d_now[1] * d_now[1] + d_now[2] * d_now[2]);
             bool placed = false;
+            Vec3 away{0, 0, 0};  // direction in which j's body leaves i's body if other pairs overlap
             if (r_now < R && pass == 0) {
                 // Back both bodies along their displacements of this step to the moment the
                 // pair reached the capture distance: |d_prev + s (u_j - u_i)| = R.
@@ -137,17 +150,21 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
                     const double back = 1.0 - s;
                     shift_body(bi, {-back * ui[0], -back * ui[1], -back * ui[2]});
                     shift_body(bj, {-back * uj[0], -back * uj[1], -back * uj[2]});
+                    const double norm = std::sqrt(qa);
+                    away = {-del[0] / norm, -del[1] / norm, -del[2] / norm};
                     placed = true;
                 }
             }
             if (!placed && r_now > 0) {
                 // Along the line of centres to the capture distance, shared by mobility.
                 const double excess = r_now - R;
-                const double wi = diff_t_[bi] / (diff_t_[bi] + diff_t_[bj]), wj = 1.0 - wi;
+                const double wi = share(diff_t_[bi], diff_t_[bj]), wj = 1.0 - wi;
                 const Vec3 u{d_now[0] / r_now, d_now[1] / r_now, d_now[2] / r_now};
                 shift_body(bi, {excess * wi * u[0], excess * wi * u[1], excess * wi * u[2]});
                 shift_body(bj, {-excess * wj * u[0], -excess * wj * u[1], -excess * wj * u[2]});
+                away = u;
             }
+            separate_other_contacts(bi, bj, away);
             captures_.push_back({step_, i, j, bi, bj, size_[bi], size_[bj], c.by_bridge});
             merge_bodies(i, j);
             moved.push_back(pos_[i].body);
@@ -177,6 +194,38 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
     // Bodies absorbed into others leave the list.
     bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
                   bodies_.end());
+}
+
+void Engine::separate_other_contacts(std::uint32_t bi, std::uint32_t bj, const Vec3& away) {
+    // Two bodies about to merge may touch through more than the capture pair (clusters meet
+    // at several points): move body bj along `away` (and bi against it, shared by mobility)
+    // until no pair between them is inside its capture distance, the deepest pair first.
+    constexpr int max_rounds = 32;
+    const std::uint32_t small = size_[bi] <= size_[bj] ? bi : bj;
+    const double wi = share(diff_t_[bi], diff_t_[bj]), wj = 1.0 - wi;
+    for (int round = 0; round < max_rounds; ++round) {
+        double worst = 0, t_needed = 0;
+        for (std::uint32_t m = small; m != npos; m = next_[m])
+            for (std::uint64_t k = nbr_start_[m]; k < nbr_start_[m + 1]; ++k) {
+                const std::uint32_t o = nbr_[k];
+                const std::uint32_t bo = pos_[o].body;
+                if (bo == pos_[m].body || (bo != bi && bo != bj)) continue;
+                const std::uint32_t p = pos_[m].body == bi ? m : o, q = p == m ? o : m;  // p in bi, q in bj
+                const Vec3 d = minimum_image({pos_[p].x, pos_[p].y, pos_[p].z}, {pos_[q].x, pos_[q].y, pos_[q].z});
+                const double R = radius_[p] + radius_[q] + capture_gap(p, q);
+                const double d2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+                const double depth = R * (1 - 1e-9) - std::sqrt(d2);
+                if (depth <= worst) continue;
+                // Smallest t > 0 with |d + t away| = R (away is a unit vector).
+                const double b = d[0] * away[0] + d[1] * away[1] + d[2] * away[2];
+                const double t = -b + std::sqrt(std::max(0.0, b * b - (d2 - R * R)));
+                worst = depth;
+                t_needed = t;
+            }
+        if (worst <= 0) return;
+        shift_body(bi, {-wi * t_needed * away[0], -wi * t_needed * away[1], -wi * t_needed * away[2]});
+        shift_body(bj, {wj * t_needed * away[0], wj * t_needed * away[1], wj * t_needed * away[2]});
+    }
 }
 
 void Engine::merge_bodies(std::uint32_t i, std::uint32_t j) {

@@ -33,7 +33,10 @@ void Engine::build_neighbour_list() {
     ++list_builds_;
     const std::size_t n = radius_.size();
     const double reach = 2 * max_radius_m_ + list_radius_extra_m_;
-    const int m = static_cast<int>(std::floor(box_ / reach));
+    // Cells at least one list range wide, and no more than about 2 per particle (a dilute box
+    // would otherwise hold mostly empty cells: memory and time growing as 1/phi).
+    const double max_cells_per_edge = std::max(3.0, std::floor(std::cbrt(2.0 * double(n))));
+    const int m = static_cast<int>(std::min(std::floor(box_ / reach), max_cells_per_edge));
     const double extra = list_radius_extra_m_;
     nbr_start_.assign(n + 1, 0);
     nbr_upper_end_.assign(n, 0);
@@ -83,29 +86,35 @@ void Engine::build_neighbour_list() {
                     visit_cell(i, (static_cast<std::size_t>(az) * e + ay) * e + ax, visit);
                 }
     };
-    const std::int64_t ni = static_cast<std::int64_t>(n);
+    // One scan per particle: each block of omp_block particles collects its neighbours (larger
+    // ids first for each particle) in its own buffer; the buffers are then laid end to end.
+    const std::size_t blocks = (n + omp_block - 1) / omp_block;
+    std::vector<std::vector<std::uint32_t>> block_lists(blocks);
     std::vector<std::uint32_t> upper_count(n);
-#pragma omp parallel for schedule(static, omp_block) if (ni >= model_->parallel_min_items)
-    for (std::int64_t ii = 0; ii < ni; ++ii) {
-        const auto i = static_cast<std::size_t>(ii);
-        std::uint64_t c = 0;
-        std::uint32_t up = 0;
-        scan(i, [&](std::uint32_t j) {
-            ++c;
-            if (j > i) ++up;
-        });
-        nbr_start_[i + 1] = c;
-        upper_count[i] = up;
+    const auto nblocks = static_cast<std::int64_t>(blocks);
+#pragma omp parallel for schedule(static, 1) if (static_cast<std::int64_t>(n) >= model_->parallel_min_items)
+    for (std::int64_t bb = 0; bb < nblocks; ++bb) {
+        const auto block = static_cast<std::size_t>(bb);
+        std::vector<std::uint32_t>& out = block_lists[block];
+        std::vector<std::uint32_t> lower;
+        for (std::size_t i = block * omp_block; i < std::min(n, (block + 1) * omp_block); ++i) {
+            lower.clear();
+            const std::size_t before = out.size();
+            scan(i, [&](std::uint32_t j) {
+                if (j > i) out.push_back(j); else lower.push_back(j);
+            });
+            upper_count[i] = static_cast<std::uint32_t>(out.size() - before);
+            out.insert(out.end(), lower.begin(), lower.end());
+            nbr_start_[i + 1] = upper_count[i] + lower.size();
+        }
     }
     std::partial_sum(nbr_start_.begin(), nbr_start_.end(), nbr_start_.begin());
     nbr_.resize(nbr_start_[n]);
-    // Each particle's neighbours with larger ids first (the capture check visits only those).
-#pragma omp parallel for schedule(static, omp_block) if (ni >= model_->parallel_min_items)
-    for (std::int64_t ii = 0; ii < ni; ++ii) {
-        const auto i = static_cast<std::size_t>(ii);
-        std::uint64_t upper = nbr_start_[i], lower = nbr_start_[i] + upper_count[i];
-        nbr_upper_end_[i] = lower;
-        scan(i, [&](std::uint32_t j) { nbr_[j > i ? upper++ : lower++] = j; });
+    for (std::size_t i = 0; i < n; ++i) nbr_upper_end_[i] = nbr_start_[i] + upper_count[i];
+#pragma omp parallel for schedule(static, 1) if (static_cast<std::int64_t>(n) >= model_->parallel_min_items)
+    for (std::int64_t bb = 0; bb < nblocks; ++bb) {
+        const auto block = static_cast<std::size_t>(bb);
+        std::copy(block_lists[block].begin(), block_lists[block].end(), nbr_.begin() + static_cast<std::ptrdiff_t>(nbr_start_[block * omp_block]));
     }
     for (std::size_t i = 0; i < n; ++i) {
         bx_[i] = pos_[i].x;

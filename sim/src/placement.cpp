@@ -32,7 +32,10 @@ InitialParticles place_particles(const std::vector<double>& radii, const std::ve
     }
     const double a_max = *std::max_element(radii.begin(), radii.end());
     const double reach = 2 * a_max + model.max_capture_gap_m();
-    const int m = std::max(1, static_cast<int>(std::floor(box / reach)));
+    // Cells at least one reach wide, and no more cells than about 2 per particle (a dilute
+    // box would otherwise hold mostly empty cells: memory and time grow as 1/phi).
+    const double max_cells_per_edge = std::max(3.0, std::floor(std::cbrt(2.0 * double(n))));
+    const int m = std::max(1, static_cast<int>(std::min(std::floor(box / reach), max_cells_per_edge)));
     const double per_m = m / box;
     auto coord = [&](double v) { return std::min(m - 1, std::max(0, static_cast<int>(v * per_m))); };
     auto cell_index = [&](int x, int y, int z) { return (static_cast<std::size_t>(z) * m + y) * m + x; };

@@ -6,11 +6,13 @@
 #include <cmath>
 #include <cstdint>
 #include <cstring>
+#include <memory>
 #include <string>
 #include <vector>
 
 #include "engine_test_support.hpp"
 #include "sim/engine.hpp"
+#include "sim/engine_model.hpp"
 #include "sim/engine_setup.hpp"
 
 using brownfloc::engine_test::plan_from_toml;
@@ -26,10 +28,15 @@ struct EngineState {
     std::size_t captures = 0;
 };
 
+// Runs the plan on `threads` OpenMP threads. Every loop of the engine is made parallel
+// (parallel_min_items = 1; by default loops under 8192 items stay on one thread, which would
+// leave these small systems untested).
 EngineState run_with_threads(const brownfloc::sim::RunPlan& plan, int threads, std::int64_t steps) {
     omp_set_num_threads(threads);
     REQUIRE(omp_get_max_threads() == threads);
-    Engine engine(plan.model, plan.particles);
+    auto model = std::make_shared<brownfloc::sim::EngineModel>(*plan.model);
+    model->parallel_min_items = 1;
+    Engine engine(model, plan.particles);
     for (std::int64_t s = 0; s < steps; ++s) engine.step();
     EngineState state;
     for (std::uint32_t i = 0; i < engine.particle_count(); ++i) {
@@ -40,10 +47,6 @@ EngineState run_with_threads(const brownfloc::sim::RunPlan& plan, int threads, s
     state.captures = engine.captures().size();
     return state;
 }
-
-}  // namespace
-
-namespace {
 
 // Same length and the same bytes (memcmp: -0.0 and 0.0 differ, as they should here).
 bool same_bits(const std::vector<double>& a, const std::vector<double>& b) {

@@ -120,6 +120,7 @@ private:
     void detect_captures(std::vector<Candidate>& out);
     void apply_captures(std::vector<Candidate>& candidates);
     void merge_bodies(std::uint32_t i, std::uint32_t j);
+    void separate_other_contacts(std::uint32_t bi, std::uint32_t bj, const Vec3& away);
     void update_mobility(std::uint32_t b);
     void shift_body(std::uint32_t b, const Vec3& shift_m);
     [[nodiscard]] double effective_diffusion(std::uint32_t i, const Vec3& unit) const;

@@ -33,7 +33,7 @@ struct RunPlan {
 // Builds the model and the initial state. Throws InputError (naming the scenario file and
 // key) for a run that cannot be done: no [suspension], a capture gap below min_gap, a
 // concentration at which random placement cannot succeed, predicted steps above max_steps.
-// seed_override replaces [run] seed (the --seed option).
+// seed is the run's seed ([run] seed, or --seed).
 [[nodiscard]] RunPlan plan_run(const Scenario& scenario, std::uint64_t seed);
 
 }  // namespace brownfloc::sim

@@ -2,6 +2,7 @@
 # The run directory guards (shared/INTERFACES.md, "Run directory"): a directory that holds a
 # run is refused without --overwrite (exit 3) and taken with it; a refusal leaves no .lock
 # behind; a stale .lock is refused even with --overwrite (exit 3), naming the lock file.
+# One thread: nothing here depends on the count, and spare threads only cost time on a busy box.
 #   run_directory.sh EXPECT_SH BROWNFLOC_EXE SCENARIO
 set -u
 expect=$1
@@ -15,10 +16,10 @@ step() {  # step DESCRIPTION EXPECTED_EXIT REGEX ARGS...  (REGEX unused for exit
     local what=$1 status=0
     shift
     if [ "$1" -eq 0 ]; then
-        "$exe" run "$scenario" -o "$dir" --quiet "${@:3}" </dev/null || status=$?
+        "$exe" run "$scenario" -o "$dir" --quiet --threads 1 "${@:3}" </dev/null || status=$?
         [ "$status" -eq 0 ] || echo "exit status $status, expected 0" >&2
     else
-        bash "$expect" "$1" "$2" -- "$exe" run "$scenario" -o "$dir" --quiet "${@:3}" || status=$?
+        bash "$expect" "$1" "$2" -- "$exe" run "$scenario" -o "$dir" --quiet --threads 1 "${@:3}" || status=$?
     fi
     if [ "$status" -ne 0 ]; then
         echo "FAIL: $what" >&2
