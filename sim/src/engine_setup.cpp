@@ -147,7 +147,7 @@ RunPlan plan_run(const Scenario& s, std::uint64_t seed) {
     const double dt = model->time_step.time_step_s;
     const double a_min = *std::min_element(min_radius.begin(), min_radius.end());
     const double amp = std::sqrt(2 * model->kT_J / (6 * constants::pi * model->viscosity_Pa_s * a_min) * dt);
-    model->skin_m = std::max(0.1 * (2 * a_min + model->max_cutoff_gap_m()), 40.0 * amp);
+    model->skin_m = std::max(0.05 * (2 * a_min + model->max_cutoff_gap_m()), 40.0 * amp);
 
     // Kinetics: fast half-life from the number-fraction mean of the fast kernels.
     double k_mean = 0;

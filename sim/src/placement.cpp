@@ -81,11 +81,19 @@ InitialParticles place_particles(const std::vector<double>& radii, const std::ve
             throw InputError(o.str());
         }
     }
-    // Ids in cell order (then slot order) for memory locality.
+    // Ids along a Morton (Z-order) curve of a 1024^3 grid (then slot order), so that
+    // neighbours in space are close in id, hence in memory, in all three directions.
     std::vector<std::uint32_t> order(n);
     std::iota(order.begin(), order.end(), 0u);
-    std::vector<std::size_t> key(n);
-    for (std::size_t k = 0; k < n; ++k) key[k] = cell_of(pos[k]);
+    std::vector<std::uint64_t> key(n);
+    auto spread = [](std::uint64_t v) {  // 10 bits -> every third bit
+        std::uint64_t r = 0;
+        for (int b = 0; b < 10; ++b) r |= ((v >> b) & 1u) << (3 * b);
+        return r;
+    };
+    auto grid = [&](double v) { return static_cast<std::uint64_t>(std::min(1023.0, std::max(0.0, v / box * 1024.0))); };
+    for (std::size_t k = 0; k < n; ++k)
+        key[k] = spread(grid(pos[k][0])) | (spread(grid(pos[k][1])) << 1) | (spread(grid(pos[k][2])) << 2);
     std::stable_sort(order.begin(), order.end(), [&](std::uint32_t a, std::uint32_t b) { return key[a] < key[b]; });
     InitialParticles out;
     out.box_length_m = box;

@@ -10,6 +10,7 @@
 #include <sys/resource.h>
 
 #include <chrono>
+#include <ctime>
 #include <string>
 
 #include "baseline_em_loop.hpp"
@@ -53,11 +54,15 @@ void engine_step(benchmark::State& state) {
     Engine engine(plan.model, plan.particles);
     for (int k = 0; k < 5; ++k) engine.step();  // first list rebuilds and early captures
     const std::int64_t builds0 = engine.list_builds();
+    const std::clock_t cpu0 = std::clock();
     const auto start = std::chrono::steady_clock::now();
     for (auto _ : state) engine.step();
     const double ns = std::chrono::duration<double, std::nano>(std::chrono::steady_clock::now() - start).count();
+    const double cpu_ns = double(std::clock() - cpu0) * 1e9 / CLOCKS_PER_SEC;
     const double particle_steps = double(state.iterations()) * double(particles);
     state.counters["ns_per_particle_step"] = ns / particle_steps;
+    // Process CPU time (all threads): robust to other load on a shared machine.
+    state.counters["cpu_ns_per_particle_step"] = cpu_ns / particle_steps;
     state.counters["list_builds"] = double(engine.list_builds() - builds0);
     state.counters["bytes_per_particle"] = peak_resident_bytes() / double(particles);
     state.counters["dt_ns"] = plan.model->time_step.time_step_s * 1e9;
@@ -77,10 +82,13 @@ void baseline_at_engine_step(benchmark::State& state) {
     brownfloc::bench::BaselineEmLoop loop(c.particles, c.volume_fraction, c.radius_m, table, s.diffusion_m2_per_s, s.kT_J,
                                           plan.model->time_step.time_step_s, plan.model->max_cutoff_gap_m(),
                                           plan.model->skin_m, c.seed);
+    const std::clock_t cpu0 = std::clock();
     const auto start = std::chrono::steady_clock::now();
     for (auto _ : state) loop.step();
     const double ns = std::chrono::duration<double, std::nano>(std::chrono::steady_clock::now() - start).count();
+    const double cpu_ns = double(std::clock() - cpu0) * 1e9 / CLOCKS_PER_SEC;
     state.counters["ns_per_particle_step"] = ns / (double(state.iterations()) * double(c.particles));
+    state.counters["cpu_ns_per_particle_step"] = cpu_ns / (double(state.iterations()) * double(c.particles));
 }
 BENCHMARK(baseline_at_engine_step)->Unit(benchmark::kMillisecond)->Iterations(100);
 

@@ -1,7 +1,7 @@
 #pragma once
 // Initial placement: t = 0 is the moment salt is added, so particles sit at random with
 // every gap at least the capture gap of their pair (random sequential addition on a cell
-// grid). Ids are then given in spatial (cell) order so that neighbours sit close in memory;
+// grid). Ids are then given along a Morton curve so that neighbours sit close in memory;
 // species and radii stay random in space. A pure function of (radii, species, box, seed).
 #include <cstdint>
 #include <string>
