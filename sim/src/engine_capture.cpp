@@ -97,9 +97,7 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
             spanning_found.insert(spanning_found.end(), spanning.begin(), spanning.end());
         }
     }
-    std::sort(out.begin(), out.end(), [](const Candidate& a, const Candidate& b) {
-        return a.i != b.i ? a.i < b.i : a.j < b.j;
-    });
+    std::sort(out.begin(), out.end(), &Engine::by_pair);
     std::sort(spanning_found.begin(), spanning_found.end());
     for (std::uint32_t b : spanning_found) {
         if (spans_[b]) continue;
@@ -179,21 +177,15 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
                 for (std::uint64_t k = nbr_start_[m]; k < nbr_start_[m + 1]; ++k) {
                     const std::uint32_t o = nbr_[k];
                     if (pos_[o].body == b) continue;
-                    const Vec3 d = minimum_image({pos_[m].x, pos_[m].y, pos_[m].z}, {pos_[o].x, pos_[o].y, pos_[o].z});
-                    const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[m] - radius_[o];
-                    if (gap < capture_gap(m, o) * (1 - 1e-9)) candidates.push_back({std::min(m, o), std::max(m, o), false});
+                    if (gap_m(m, o) < capture_gap(m, o) * (1 - 1e-9)) candidates.push_back({std::min(m, o), std::max(m, o), false});
                 }
         }
-        std::sort(candidates.begin(), candidates.end(), [](const Candidate& a, const Candidate& b) {
-            return a.i != b.i ? a.i < b.i : a.j < b.j;
-        });
+        std::sort(candidates.begin(), candidates.end(), &Engine::by_pair);
         candidates.erase(std::unique(candidates.begin(), candidates.end(),
                                      [](const Candidate& a, const Candidate& b) { return a.i == b.i && a.j == b.j; }),
                          candidates.end());
     }
-    // Bodies absorbed into others leave the list.
-    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
-                  bodies_.end());
+    drop_absorbed_bodies();
 }
 
 void Engine::separate_other_contacts(std::uint32_t bi, std::uint32_t bj, const Vec3& away) {
@@ -226,6 +218,13 @@ void Engine::separate_other_contacts(std::uint32_t bi, std::uint32_t bj, const V
         shift_body(bi, {-wi * t_needed * away[0], -wi * t_needed * away[1], -wi * t_needed * away[2]});
         shift_body(bj, {wj * t_needed * away[0], wj * t_needed * away[1], wj * t_needed * away[2]});
     }
+}
+
+bool Engine::by_pair(const Candidate& a, const Candidate& b) { return a.i != b.i ? a.i < b.i : a.j < b.j; }
+
+void Engine::drop_absorbed_bodies() {
+    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
+                  bodies_.end());
 }
 
 void Engine::merge_bodies(std::uint32_t i, std::uint32_t j) {
@@ -292,17 +291,14 @@ void Engine::bond_initial_contacts() {
         for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k) {
             const std::uint32_t j = nbr_[k];
             if (j <= i) continue;
-            const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
-            const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[i] - radius_[j];
-            if (gap <= capture_gap(i, j)) found.push_back({i, j, false});
+            if (gap_m(i, j) <= capture_gap(i, j)) found.push_back({i, j, false});
         }
     for (const Candidate& c : found) {
         if (pos_[c.i].body == pos_[c.j].body) continue;
         merge_bodies(c.i, c.j);
         ++bonded_at_start_;
     }
-    bodies_.erase(std::remove_if(bodies_.begin(), bodies_.end(), [&](std::uint32_t b) { return pos_[b].body != b; }),
-                  bodies_.end());
+    drop_absorbed_bodies();
     for (std::size_t i = 0; i < pos_.size(); ++i) {
         px_[i] = pos_[i].x;
         py_[i] = pos_[i].y;

@@ -129,9 +129,7 @@ double Engine::smallest_relative_gap() const {
     for (std::size_t i = 0; i < n; ++i)
         for (std::uint64_t k = nbr_start_[i]; k < nbr_start_[i + 1]; ++k) {
             const std::uint32_t j = nbr_[k];
-            const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
-            const double gap = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[i] - radius_[j];
-            smallest = std::min(smallest, gap / std::min(radius_[i], radius_[j]));
+            smallest = std::min(smallest, gap_m(static_cast<std::uint32_t>(i), j) / std::min(radius_[i], radius_[j]));
         }
     return smallest;
 }

@@ -102,9 +102,7 @@ std::int64_t RunRecorder::geometric_clusters(const Engine& engine) const {
         if (engine.body_of(i) == engine.body_of(j)) return;
         const auto& gap = m.pair_kind(engine.species(i), engine.species(j)).cluster_gap_m;
         if (!gap) return;
-        const Vec3 d = engine.minimum_image(engine.position_m(i), engine.position_m(j));
-        const double h = std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - engine.radius_m(i) - engine.radius_m(j);
-        if (h < *gap) sets.unite(i, j);
+        if (engine.gap_m(i, j) < *gap) sets.unite(i, j);
     });
     return static_cast<std::int64_t>(sets.set_count());
 }

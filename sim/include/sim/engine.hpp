@@ -103,6 +103,12 @@ public:
             for (std::uint64_t k = nbr_start_[i]; k < nbr_upper_end_[i]; ++k) visit(i, nbr_[k]);
     }
 
+    // Surface gap [m] of particles i and j (minimum image; negative when they overlap).
+    [[nodiscard]] double gap_m(std::uint32_t i, std::uint32_t j) const {
+        const Vec3 d = minimum_image(position_m(i), position_m(j));
+        return std::sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]) - radius_[i] - radius_[j];
+    }
+
     // Minimum-image vector from a to b [m], both inside the box [0, L)^3.
     [[nodiscard]] Vec3 minimum_image(const Vec3& a, const Vec3& b) const {
         return {fold(b[0] - a[0]), fold(b[1] - a[1]), fold(b[2] - a[2])};
@@ -113,6 +119,8 @@ private:
         std::uint32_t i, j;  // i < j
         bool by_bridge;
     };
+    // (smaller id, larger id) order: the order captures are applied in.
+    static bool by_pair(const Candidate& a, const Candidate& b);
     void build_neighbour_list();
     bool neighbour_list_stale() const;
     void compute_forces();
@@ -161,6 +169,7 @@ private:
         return model_->pair_kind(pos_[i].species, pos_[j].species).capture_gap_m;
     }
     void bond_initial_contacts();
+    void drop_absorbed_bodies();  // bodies_ keeps only bodies that were not merged into others
     void set_position_from_body(std::uint32_t i);
 
     std::shared_ptr<const EngineModel> model_;
