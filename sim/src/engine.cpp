@@ -27,7 +27,7 @@ Engine::Engine(std::shared_ptr<const EngineModel> model, InitialParticles partic
     inv_box_ = 1.0 / box_;
     half_box_ = 0.5 * box_;
     auto resize = [n](auto&... v) { (v.resize(n), ...); };
-    resize(pos_, px_, py_, pz_, bx_, by_, bz_, ox_, oy_, oz_, fx_, fy_, fz_, radius_, next_,
+    resize(pos_, start_, bx_, by_, bz_, ox_, oy_, oz_, fx_, fy_, fz_, radius_, next_,
            cx_, cy_, cz_, size_, diff_t_, diff_r_, hydro_radius_, spans_, amp_t_, amp_r_, mob_t_, mob_r_);
     bodies_.resize(n);
     for (std::uint32_t i = 0; i < n; ++i) {
@@ -63,6 +63,7 @@ std::vector<std::uint32_t> Engine::members(std::uint32_t b) const {
 std::vector<Vec3> Engine::unwrapped_members_m(std::uint32_t b) const {
     std::vector<Vec3> out;
     out.reserve(size_[b]);
+    if (size_[b] == 1) return {position_m(b)};  // a monomer's centre is its position (cx_ is not kept)
     for (std::uint32_t k = b; k != npos; k = next_[k]) out.push_back({cx_[b] + ox_[k], cy_[b] + oy_[k], cz_[b] + oz_[k]});
     return out;
 }

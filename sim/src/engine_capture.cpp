@@ -36,60 +36,84 @@ double Engine::effective_diffusion(std::uint32_t i, const Vec3& unit) const {
     return d;
 }
 
-void Engine::detect_captures(std::vector<Candidate>& out) {
-    out.clear();
-    const std::int64_t n = static_cast<std::int64_t>(radius_.size());
-    const double dt = model_->time_step.time_step_s;
-    const std::uint64_t seed = seed_, step = static_cast<std::uint64_t>(step_);
-    double smallest = std::numeric_limits<double>::infinity();
-    std::vector<std::uint32_t> spanning_found;
+double Engine::capture_reach_m() const {
     // No pair farther than this can be captured in this step: the largest capture distance
     // plus the bridge range of the fastest member (a monomer of the smallest radius, or a
     // cluster member far from its centre: D_t + D_r |o|^2, the rotation included).
     const double d_rel_max = 2 * max_member_diffusion_;
-    const double reach = 2 * max_radius_m_ + model_->max_capture_gap_m() + 12.0 * std::sqrt(d_rel_max * dt) * 1.01;
+    return 2 * max_radius_m_ + model_->max_capture_gap_m() +
+           12.0 * std::sqrt(d_rel_max * model_->time_step.time_step_s) * 1.01;
+}
+
+void Engine::build_capture_pairs(double reach_m) {
+    // Pairs of the neighbour list closer than the capture reach plus 1.5 skins: while no
+    // particle has moved more than (range - reach) / 2 since, every listed pair that can be
+    // within reach is among them. Same-body pairs stay in: they reveal spanning bodies.
+    capture_list_range_m_ = reach_m + 1.5 * model_->skin_m;
+    capture_list_bound_m_ = 0;
+    const double range2 = capture_list_range_m_ * capture_list_range_m_;
+    capture_pairs_.clear();
+    const std::uint32_t n = static_cast<std::uint32_t>(radius_.size());
+    for (std::uint32_t i = 0; i < n; ++i)
+        for (std::uint64_t k = nbr_start_[i]; k < nbr_upper_end_[i]; ++k) {
+            const std::uint32_t j = nbr_[k];
+            const double dx = fold(pos_[j].x - pos_[i].x), dy = fold(pos_[j].y - pos_[i].y), dz = fold(pos_[j].z - pos_[i].z);
+            if (dx * dx + dy * dy + dz * dz <= range2) capture_pairs_.push_back({i, j});
+        }
+}
+
+void Engine::detect_captures(std::vector<Candidate>& out) {
+    out.clear();
+    const double dt = model_->time_step.time_step_s;
+    const std::uint64_t seed = seed_, step = static_cast<std::uint64_t>(step_);
+    double smallest = std::numeric_limits<double>::infinity();
+    std::vector<std::uint32_t> spanning_found;
+    const double reach = capture_reach_m();
     const double reach2 = reach * reach;
-#pragma omp parallel reduction(min : smallest) if (n >= model_->parallel_min_items)
+    // The pairs any particle's motion since the capture list was made could have brought within reach.
+    if (reach + 2 * capture_list_bound_m_ > capture_list_range_m_) build_capture_pairs(reach);
+    const std::int64_t pairs = static_cast<std::int64_t>(capture_pairs_.size());
+#pragma omp parallel reduction(min : smallest) if (pairs >= model_->parallel_min_items)
     {
         std::vector<Candidate> local;
         std::vector<std::uint32_t> spanning;
 #pragma omp for schedule(static, omp_block) nowait
-        for (std::int64_t ii = 0; ii < n; ++ii) {
-            const std::uint32_t i = static_cast<std::uint32_t>(ii);
+        for (std::int64_t kk = 0; kk < pairs; ++kk) {
+            const std::size_t k = static_cast<std::size_t>(kk);
+            if (k + prefetch_ahead < capture_pairs_.size()) __builtin_prefetch(&pos_[capture_pairs_[k + prefetch_ahead][1]]);
+            const std::uint32_t i = capture_pairs_[k][0];
+            const std::uint32_t j = capture_pairs_[k][1];
+            const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
+            const double r2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+            if (r2 > reach2) continue;  // too far for a capture or a bridge crossing
             const std::uint32_t bi = pos_[i].body;
-            for (std::uint64_t k = nbr_start_[i]; k < nbr_upper_end_[i]; ++k) {
-                const std::uint32_t j = nbr_[k];
-                const Vec3 d = minimum_image({pos_[i].x, pos_[i].y, pos_[i].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
-                const double r2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
-                if (r2 > reach2) continue;  // too far for a capture or a bridge crossing
-                const double hc = capture_gap(i, j);
-                const double r = std::sqrt(r2);
-                const double h1 = r - radius_[i] - radius_[j];
-                if (pos_[j].body == bi) {
-                    // Members of one body: a contact through the periodic boundary means the
-                    // body meets its own image.
-                    if (h1 <= hc) {
-                        const double ex = ox_[j] - ox_[i] - d[0], ey = oy_[j] - oy_[i] - d[1], ez = oz_[j] - oz_[i] - d[2];
-                        if (ex * ex + ey * ey + ez * ez > 0.25 * box_ * box_) spanning.push_back(bi);
-                    }
-                    continue;
-                }
+            const double hc = capture_gap(i, j);
+            const double r = std::sqrt(r2);
+            const double h1 = r - radius_[i] - radius_[j];
+            if (pos_[j].body == bi) {
+                // Members of one body: a contact through the periodic boundary means the
+                // body meets its own image.
                 if (h1 <= hc) {
-                    local.push_back({i, j, false});
-                    continue;
+                    const double ex = ox_[j] - ox_[i] - d[0], ey = oy_[j] - oy_[i] - d[1], ez = oz_[j] - oz_[i] - d[2];
+                    if (ex * ex + ey * ey + ez * ez > 0.25 * box_ * box_) spanning.push_back(bi);
                 }
-                smallest = std::min(smallest, h1 / std::min(radius_[i], radius_[j]));
-                const Vec3 unit{d[0] / r, d[1] / r, d[2] / r};
-                const double d_rel = effective_diffusion(i, unit) + effective_diffusion(j, unit);
-                const double x1 = h1 - hc;
-                if (!bridge_crossing_possible(x1, d_rel, dt)) continue;
-                const Vec3 d0 = minimum_image({px_[i], py_[i], pz_[i]}, {px_[j], py_[j], pz_[j]});
-                const double x0 = std::sqrt(d0[0] * d0[0] + d0[1] * d0[1] + d0[2] * d0[2]) - radius_[i] - radius_[j] - hc;
-                const double p = bridge_crossing_probability(x0, x1, d_rel, dt);
-                if (p < 1e-18) continue;
-                const auto bits = philox_block(seed, step, i, NoiseStream::capture, j);
-                if (uniform_open01(bits[0]) < p) local.push_back({i, j, true});
+                continue;
             }
+            if (h1 <= hc) {
+                local.push_back({i, j, false});
+                continue;
+            }
+            smallest = std::min(smallest, h1 / std::min(radius_[i], radius_[j]));
+            const Vec3 unit{d[0] / r, d[1] / r, d[2] / r};
+            const double d_rel = effective_diffusion(i, unit) + effective_diffusion(j, unit);
+            const double x1 = h1 - hc;
+            if (!bridge_crossing_possible(x1, d_rel, dt)) continue;
+            const Vec3 d0 = minimum_image({start_[i].x, start_[i].y, start_[i].z}, {start_[j].x, start_[j].y, start_[j].z});
+            const double x0 = std::sqrt(d0[0] * d0[0] + d0[1] * d0[1] + d0[2] * d0[2]) - radius_[i] - radius_[j] - hc;
+            const double p = bridge_crossing_probability(x0, x1, d_rel, dt);
+            if (p < 1e-18) continue;
+            const auto bits = philox_block(seed, step, i, NoiseStream::capture, j);
+            if (uniform_open01(bits[0]) < p) local.push_back({i, j, true});
         }
 #pragma omp critical(brownfloc_capture_merge)
         {
@@ -110,6 +134,8 @@ void Engine::detect_captures(std::vector<Candidate>& out) {
 }
 
 void Engine::shift_body(std::uint32_t b, const Vec3& s) {
+    add_to_displacement_bounds(std::sqrt(s[0] * s[0] + s[1] * s[1] + s[2] * s[2]));
+    sync_monomer_centre(b);
     cx_[b] += s[0];
     cy_[b] += s[1];
     cz_[b] += s[2];
@@ -135,8 +161,8 @@ void Engine::apply_captures(std::vector<Candidate>& candidates) {
             if (r_now < R && pass == 0) {
                 // Back both bodies along their displacements of this step to the moment the
                 // pair reached the capture distance: |d_prev + s (u_j - u_i)| = R.
-                const Vec3 ui = minimum_image({px_[i], py_[i], pz_[i]}, {pos_[i].x, pos_[i].y, pos_[i].z});
-                const Vec3 uj = minimum_image({px_[j], py_[j], pz_[j]}, {pos_[j].x, pos_[j].y, pos_[j].z});
+                const Vec3 ui = minimum_image({start_[i].x, start_[i].y, start_[i].z}, {pos_[i].x, pos_[i].y, pos_[i].z});
+                const Vec3 uj = minimum_image({start_[j].x, start_[j].y, start_[j].z}, {pos_[j].x, pos_[j].y, pos_[j].z});
                 const Vec3 del{uj[0] - ui[0], uj[1] - ui[1], uj[2] - ui[2]};
                 const Vec3 dp{d_now[0] - del[0], d_now[1] - del[1], d_now[2] - del[2]};
                 const double qa = del[0] * del[0] + del[1] * del[1] + del[2] * del[2];
@@ -234,6 +260,7 @@ void Engine::merge_bodies(std::uint32_t i, std::uint32_t j) {
         std::swap(keep, gone);
         std::swap(p, q);
     }
+    sync_monomer_centre(keep);
     // Offsets of the absorbed members in the kept body's frame, through the contact pair.
     const Vec3 d = minimum_image({pos_[p].x, pos_[p].y, pos_[p].z}, {pos_[q].x, pos_[q].y, pos_[q].z});
     const double qx = ox_[q], qy = oy_[q], qz = oz_[q];
@@ -299,11 +326,7 @@ void Engine::bond_initial_contacts() {
         ++bonded_at_start_;
     }
     drop_absorbed_bodies();
-    for (std::size_t i = 0; i < pos_.size(); ++i) {
-        px_[i] = pos_[i].x;
-        py_[i] = pos_[i].y;
-        pz_[i] = pos_[i].z;
-    }
+    start_ = pos_;
 }
 
 }  // namespace brownfloc::sim

@@ -15,22 +15,22 @@ namespace {
 constexpr int omp_block = 256;
 }
 
-bool Engine::neighbour_list_stale() const {
-    const double limit = 0.5 * model_->skin_m;
-    const double limit2 = limit * limit;
+double Engine::largest_squared_displacement_since_build() const {
     const std::int64_t n = static_cast<std::int64_t>(radius_.size());
-    int stale = 0;
-#pragma omp parallel for schedule(static, omp_block) reduction(| : stale) if (n >= model_->parallel_min_items)
+    double largest = 0;
+#pragma omp parallel for schedule(static, omp_block) reduction(max : largest) if (n >= model_->parallel_min_items)
     for (std::int64_t ii = 0; ii < n; ++ii) {
         const std::size_t i = static_cast<std::size_t>(ii);
         const double dx = fold(pos_[i].x - bx_[i]), dy = fold(pos_[i].y - by_[i]), dz = fold(pos_[i].z - bz_[i]);
-        if (dx * dx + dy * dy + dz * dz > limit2) stale |= 1;
+        largest = std::max(largest, dx * dx + dy * dy + dz * dz);
     }
-    return stale != 0;
+    return largest;
 }
 
 void Engine::build_neighbour_list() {
     ++list_builds_;
+    displacement_bound_m_ = 0;
+    capture_list_bound_m_ = std::numeric_limits<double>::infinity();  // remade from this list at the next capture check
     const std::size_t n = radius_.size();
     const double reach = 2 * max_radius_m_ + list_radius_extra_m_;
     // Cells at least one list range wide, and no more than about 2 per particle (a dilute box
@@ -109,7 +109,9 @@ void Engine::build_neighbour_list() {
         }
     }
     std::partial_sum(nbr_start_.begin(), nbr_start_.end(), nbr_start_.begin());
-    nbr_.resize(nbr_start_[n]);
+    // prefetch_ahead entries past the end, all valid ids (0), so that the pair loops can
+    // prefetch nbr_[k + prefetch_ahead] without a bounds check.
+    nbr_.assign(nbr_start_[n] + prefetch_ahead, 0);
     for (std::size_t i = 0; i < n; ++i) nbr_upper_end_[i] = nbr_start_[i] + upper_count[i];
 #pragma omp parallel for schedule(static, 1) if (static_cast<std::int64_t>(n) >= model_->parallel_min_items)
     for (std::int64_t bb = 0; bb < nblocks; ++bb) {

@@ -18,6 +18,9 @@
 #include <cstddef>
 #include <cstdint>
 #include <stdexcept>
+#include <algorithm>
+#include <chrono>
+#include <limits>
 #include <time.h>  // clock_gettime (POSIX)
 
 #include "potentials/electrolyte.hpp"
@@ -109,5 +112,39 @@ struct SpeedCaseSetup {
     clock_gettime(CLOCK_THREAD_CPUTIME_ID, &t);
     return static_cast<double>(t.tv_sec) * 1e9 + static_cast<double>(t.tv_nsec);
 }
+
+// The best (smallest) cost of a block of consecutive steps, by thread CPU time and by wall
+// time. On a shared machine another job inflates some blocks; the best block of a run is
+// the steady cost with the least interference, and the figure to compare between cases of
+// one run. Call start() before a step and stop() after it.
+class BestBlock {
+public:
+    explicit BestBlock(int steps_per_block) : steps_per_block_(steps_per_block) {}
+    void start() {
+        if (in_block_ == 0) {
+            cpu0_ = thread_cpu_time_ns();
+            wall0_ = std::chrono::steady_clock::now();
+        }
+    }
+    void stop() {
+        if (++in_block_ < steps_per_block_) return;
+        const double cpu = thread_cpu_time_ns() - cpu0_;
+        const double wall = std::chrono::duration<double, std::nano>(std::chrono::steady_clock::now() - wall0_).count();
+        best_cpu_ns_ = std::min(best_cpu_ns_, cpu / steps_per_block_);
+        best_wall_ns_ = std::min(best_wall_ns_, wall / steps_per_block_);
+        in_block_ = 0;
+    }
+    // Per step [ns]; infinite before the first whole block.
+    [[nodiscard]] double best_cpu_ns_per_step() const { return best_cpu_ns_; }
+    [[nodiscard]] double best_wall_ns_per_step() const { return best_wall_ns_; }
+
+private:
+    int steps_per_block_;
+    int in_block_ = 0;
+    double cpu0_ = 0;
+    std::chrono::steady_clock::time_point wall0_{};
+    double best_cpu_ns_ = std::numeric_limits<double>::infinity();
+    double best_wall_ns_ = std::numeric_limits<double>::infinity();
+};
 
 }  // namespace brownfloc::bench
