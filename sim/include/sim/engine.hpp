@@ -44,7 +44,11 @@ struct CaptureEvent {
     std::uint32_t body_i = 0, body_j = 0;
     std::uint32_t size_i = 0, size_j = 0;
     bool by_bridge = false;  // caught by the Brownian-bridge probability, not by the end position
+
+    friend bool operator==(const CaptureEvent&, const CaptureEvent&) = default;
 };
+
+struct EngineState;  // engine_state.hpp
 
 class Engine {
 public:
@@ -52,6 +56,13 @@ public:
     // seed replaces the model's seed for the noise (tests run many engines on one model).
     Engine(std::shared_ptr<const EngineModel> model, InitialParticles particles,
            std::optional<std::uint64_t> seed = std::nullopt);
+
+    // Continues a run from a saved state (a checkpoint) on the same model: the steps that
+    // follow give the same bits as in the run that saved it. Throws std::invalid_argument if
+    // the state does not fit the model (particle count, radii, species, box).
+    Engine(std::shared_ptr<const EngineModel> model, const EngineState& state);
+    // The state after the last step: what state-based construction needs.
+    [[nodiscard]] EngineState state() const;
 
     void step();
 
