@@ -31,9 +31,17 @@ struct RunCommandOptions {
     bool overwrite = false;
 };
 
+struct ExportOptions {
+    std::string run_dir;
+    std::string frame = "last";  // "last" or a frame number
+    std::string format = "csv";
+    std::string output_path;     // empty: standard output
+};
+
 // Each returns the exit code; input errors propagate as brownfloc::InputError.
 int run_dlvo(const DlvoOptions& options);
 int run_ccc(const CommonOptions& options);
 int run_run(const RunCommandOptions& options);
+int run_export(const ExportOptions& options);
 
 }  // namespace brownfloc::app

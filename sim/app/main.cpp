@@ -4,7 +4,11 @@
 #include <iostream>
 
 #include "commands.hpp"
+#include "io/file_writing.hpp"
+#include "io/io_error.hpp"
 #include "potentials/input_error.hpp"
+#include "sim/environment_error.hpp"
+#include "trajectory/trajectory_error.hpp"
 
 namespace {
 
@@ -61,6 +65,22 @@ int main(int argc, char** argv) {
     run_command->add_flag("--quiet", run.quiet, "No progress lines on standard error");
     run_command->add_flag("--overwrite", run.overwrite, "Replace the results in a run directory that holds another run");
 
+    // A write past `ulimit -f` then fails with EFBIG (reported, exit 3) instead of killing us.
+    brownfloc::io::ignore_file_size_signal();
+    ExportOptions export_options;
+    CLI::App* export_command = app.add_subcommand(
+        "export", "One frame of a run's trajectory as CSV: id, species, radius_nm, x_nm, y_nm, z_nm, cluster, "
+                  "spans_box (each cluster stored whole)");
+    export_command->add_option("run_dir", export_options.run_dir, "Run directory (holds trajectory.bftraj)")
+        ->required();
+    export_command->add_option("--frame", export_options.frame, "Frame number (from 0) or last (default: the last "
+                                                                "intact frame)")
+        ->type_name("N|last");
+    export_command->add_option("--format", export_options.format, "Output format")->check(CLI::IsMember({"csv"}));
+    export_command->add_option("-o,--output", export_options.output_path,
+                               "Write to this file (replaced atomically) instead of standard output")
+        ->type_name("FILE");
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
@@ -73,9 +93,19 @@ int main(int argc, char** argv) {
         if (dlvo_command->parsed()) return run_dlvo(dlvo);
         if (ccc_command->parsed()) return run_ccc(ccc);
         if (run_command->parsed()) return run_run(run);
+        if (export_command->parsed()) return run_export(export_options);
     } catch (const brownfloc::InputError& e) {
         std::cerr << "error: " << e.what() << "\n";
         return exit_bad_input;
+    } catch (const brownfloc::trajectory::TrajectoryFormatError& e) {
+        std::cerr << "error: " << e.what() << "\n";  // a damaged or hostile file
+        return exit_bad_input;
+    } catch (const brownfloc::io::IoError& e) {
+        std::cerr << "error: " << e.what() << "\n";
+        return exit_io;
+    } catch (const brownfloc::sim::EnvironmentError& e) {
+        std::cerr << "error: " << e.what() << "\n";
+        return exit_io;
     } catch (const std::exception& e) {
         std::cerr << "error: internal error: " << e.what() << " (please report this with the scenario)\n";
         return exit_internal;

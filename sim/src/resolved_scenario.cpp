@@ -110,13 +110,14 @@ void write_settings(TomlWriter& w, const Scenario& s) {
     w.integer("max_steps", r.max_steps);
 
     const OutputSettings& o = s.output;
-    if (o.output_interval_s || o.output_spacing || o.snapshot_interval_s || o.snapshots ||
+    if (o.output_interval_s || o.output_spacing || o.snapshot_interval_s || o.snapshots || o.trajectory_precision ||
         o.checkpoint_interval_wall_s) {
         w.section("[output]");
         w.number("output_interval_s", o.output_interval_s);
         w.text("output_spacing", o.output_spacing);
         w.number("snapshot_interval_s", o.snapshot_interval_s);
         w.integer("snapshots", o.snapshots);
+        w.text("trajectory_precision", o.trajectory_precision);
         w.number("checkpoint_interval_wall_s", o.checkpoint_interval_wall_s);
     }
 }

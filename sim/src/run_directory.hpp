@@ -1,30 +1,39 @@
 #pragma once
 // The run directory on disk: created if missing, refused if it holds another run (unless
-// overwrite), guarded by a .lock file while a run writes into it.
+// overwrite), and locked for the life of the process that writes into it. The lock is a
+// kernel advisory lock (flock) on RUN_DIR/.lock, which the kernel drops when the process
+// ends, however it ends: a killed run never blocks its resumption. A second writer is refused
+// (EnvironmentError, exit 3) with the holder's PID, which the holder writes into the file.
+// Readers (export, the viewer) never take it.
 #include <filesystem>
-#include <fstream>
 #include <string>
+
+#include "io/unique_fd.hpp"
 
 namespace brownfloc::sim {
 
 class RunDirectory {
 public:
-    RunDirectory(const std::filesystem::path& dir, bool overwrite);
-    ~RunDirectory();
-    RunDirectory(const RunDirectory&) = delete;
-    RunDirectory& operator=(const RunDirectory&) = delete;
+    enum class Mode {
+        new_run,    // create; refuse a directory that holds a run
+        overwrite,  // create; remove the files of a run it holds
+        resume,     // must hold a run (a checkpoint)
+    };
+    RunDirectory(const std::filesystem::path& dir, Mode mode);
 
     [[nodiscard]] const std::filesystem::path& path() const { return dir_; }
-    // Opens a file in the directory for writing; EnvironmentError naming it on failure.
-    [[nodiscard]] std::ofstream open(const std::string& name) const;
-    // Writes a whole file (via a temporary and rename, so a reader never sees half of it).
+    [[nodiscard]] std::filesystem::path file(const std::string& name) const { return dir_ / name; }
+    // Replaces a whole file atomically (temporary file, fsync, rename, directory fsync).
+    // Throws io::IoError.
     void write_file(const std::string& name, const std::string& content) const;
-    // Throws EnvironmentError if the stream failed (disk full, ...).
-    void check(std::ofstream& out, const std::string& name) const;
 
 private:
     std::filesystem::path dir_;
-    bool locked_ = false;
+    io::UniqueFd lock_;
 };
+
+// The files of a run (present or not).
+inline constexpr const char* trajectory_file_name = "trajectory.bftraj";
+inline constexpr const char* checkpoint_file_name = "checkpoint.bfckpt";
 
 }  // namespace brownfloc::sim

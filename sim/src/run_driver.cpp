@@ -7,7 +7,9 @@
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
+#include <sstream>
 
+#include "appending_file.hpp"
 #include "run_directory.hpp"
 #include "run_summary.hpp"
 #include "sha256.hpp"
@@ -15,6 +17,8 @@
 #include "sim/engine_setup.hpp"
 #include "sim/rate_fit.hpp"
 #include "sim/run_recorder.hpp"
+#include "sim/trajectory_recording.hpp"
+#include "trajectory/trajectory_writer.hpp"
 
 namespace brownfloc::sim {
 
@@ -94,7 +98,7 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     std::ostream* msg = options.quiet ? nullptr : options.messages;
     if (msg) print_plan(*msg, plan, result.output_dir);
 
-    RunDirectory dir(result.output_dir, options.overwrite);
+    RunDirectory dir(result.output_dir, options.overwrite ? RunDirectory::Mode::overwrite : RunDirectory::Mode::new_run);
     const std::string resolved = resolved_scenario_toml(scenario);
     dir.write_file("scenario.toml", resolved);
 
@@ -102,18 +106,34 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     const auto start = Clock::now();
     Engine engine(plan.model, plan.particles);
     RunRecorder recorder(plan, engine);
-    std::ofstream timeseries = dir.open("timeseries.csv");
-    std::ofstream sizes = dir.open("size_distribution.csv");
-    RunRecorder::write_timeseries_header(timeseries, plan.model->reversible);
-    RunRecorder::write_size_distribution_header(sizes);
+    AppendingFile timeseries = AppendingFile::create(dir.file("timeseries.csv"));
+    AppendingFile sizes = AppendingFile::create(dir.file("size_distribution.csv"));
+    {
+        std::ostringstream ts, sz;
+        RunRecorder::write_timeseries_header(ts, plan.model->reversible);
+        RunRecorder::write_size_distribution_header(sz);
+        timeseries.append(ts.str());
+        sizes.append(sz.str());
+    }
+    const bool float64 = scenario.output.trajectory_precision.value_or("float32") == "float64";
+    trajectory::TrajectoryWriter trajectory_out =
+        trajectory::TrajectoryWriter::create(dir.file(trajectory_file_name), trajectory_header(scenario, plan, resolved), float64);
 
     const std::vector<std::int64_t> outputs = output_steps(scenario, plan);
-    std::size_t next_output = 0;
+    const std::vector<std::int64_t> snapshots = snapshot_steps(scenario, plan);
+    std::size_t next_output = 0, next_snapshot = 0;
     auto last_report = Clock::now();
     while (true) {
         if (next_output < outputs.size() && outputs[next_output] == engine.steps_taken()) {
-            recorder.write_output(engine, timeseries, sizes);
+            std::ostringstream ts, sz;
+            recorder.write_output(engine, ts, sz);
+            timeseries.append(ts.str());
+            sizes.append(sz.str());
             ++next_output;
+        }
+        if (next_snapshot < snapshots.size() && snapshots[next_snapshot] == engine.steps_taken()) {
+            trajectory_out.append(trajectory_frame(engine));
+            ++next_snapshot;
         }
         if (engine.steps_taken() >= plan.total_steps) break;
         engine.step();
@@ -132,8 +152,9 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
             }
         }
     }
-    dir.check(timeseries, "timeseries.csv");
-    dir.check(sizes, "size_distribution.csv");
+    timeseries.sync();
+    sizes.sync();
+    trajectory_out.sync();
 
     const std::vector<ClusterRow> rows = recorder.cluster_rows(engine);
     {
@@ -163,7 +184,12 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     }
     RunTiming timing;
     timing.wall_time_s = std::chrono::duration<double>(Clock::now() - start).count();
+    timing.session_wall_time_s = timing.wall_time_s;
+    timing.session_particle_steps = engine.steps_taken() * static_cast<std::int64_t>(engine.particle_count());
     timing.threads = std::max(1, options.threads);
+    timing.trajectory_file = trajectory_file_name;
+    timing.trajectory_bytes = trajectory_out.bytes();
+    timing.trajectory_frames = trajectory_out.frames();
     const Json summary = run_summary_json(scenario, plan, engine, recorder, rows, sha256_hex(resolved), timing);
     result.summary_json = summary.dump();
     dir.write_file("summary.json", result.summary_json + "\n");

@@ -145,12 +145,17 @@ Json run_summary_json(const Scenario& scenario, const RunPlan& plan, const Engin
                        "no hydrodynamic interactions between bodies: compare measured_stability_ratio with "
                        "stability_ratio_at_capture, not with a measured (hydrodynamic) stability ratio",
                        "radius of gyration from the sphere centres (each sphere's own 3/5 a^2 not included)"}));
-    j.set("status", "complete");
-    j.set("resumes", 0);
+    j.set("trajectory_file", timing.trajectory_file);
+    j.set("trajectory_bytes", static_cast<std::int64_t>(timing.trajectory_bytes));
+    j.set("trajectory_frames", static_cast<std::int64_t>(timing.trajectory_frames));
+    j.set("status", timing.status);
+    j.set("resumes", timing.resumes);
     j.set("brownfloc_version", BROWNFLOC_VERSION);
     j.set("scenario_sha256", scenario_sha256);
     j.set("wall_time_s", timing.wall_time_s);
-    j.set("particle_steps_per_s", timing.wall_time_s > 0 ? particle_steps / timing.wall_time_s : 0.0);
+    j.set("particle_steps_per_s", timing.session_wall_time_s > 0
+                                      ? double(timing.session_particle_steps) / timing.session_wall_time_s
+                                      : 0.0);
     j.set("threads", timing.threads);
     j.set("caution", stability_caution());
     return j;

@@ -80,6 +80,7 @@ std::vector<SectionSpec> build_sections() {
     sections.push_back({"output", false,
                         {number("output_interval_s", gt(0)), choice("output_spacing", {"linear", "log"}),
                          number("snapshot_interval_s", gt(0)), integer("snapshots", ge(2)),
+                         choice("trajectory_precision", {"float32", "float64"}),
                          number("checkpoint_interval_wall_s", gt(0))},
                         {{"snapshot_interval_s", "snapshots"}}, {}});
     return sections;

@@ -77,6 +77,7 @@ void read_output(const toml::table& table, OutputSettings& output) {
     output.output_spacing = string_at(table, "output_spacing");
     output.snapshot_interval_s = number_at(table, "snapshot_interval_s");
     output.snapshots = integer_at(table, "snapshots");
+    output.trajectory_precision = string_at(table, "trajectory_precision");
     output.checkpoint_interval_wall_s = number_at(table, "checkpoint_interval_wall_s");
 }
 

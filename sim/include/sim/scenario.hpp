@@ -55,6 +55,7 @@ struct OutputSettings {  // [output]: used by `brownfloc run` (later issues)
     std::optional<std::string> output_spacing;  // "linear" | "log"
     std::optional<double> snapshot_interval_s;
     std::optional<std::int64_t> snapshots;
+    std::optional<std::string> trajectory_precision;  // "float32" (default) | "float64"
     std::optional<double> checkpoint_interval_wall_s;
 
     friend bool operator==(const OutputSettings&, const OutputSettings&) = default;

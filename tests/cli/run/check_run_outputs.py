@@ -2,11 +2,13 @@
 """Smoke test of `brownfloc run SCENARIO --json`: exit 0; standard output is the JSON of
 summary.json; summary.json holds every key shared/INTERFACES.md lists (no key twice, finite
 numbers, a null only with a `<key>_note`); the CSV headers hold the listed columns in order;
-no CSV value is nan or inf; the .lock file is gone at the end.
+no CSV value is nan or inf; the trajectory file is there with the frames and bytes summary.json
+gives; no temporary file is left and nobody holds the .lock at the end.
 
 Usage: check_run_outputs.py BROWNFLOC_EXE SCENARIO [--set ...]
 """
 import csv
+import fcntl
 import json
 import math
 import os
@@ -23,7 +25,8 @@ particle_steps time_step_s time_step_min_s time_step_max_s time_step_rule predic
 measured_rate_constant_m3_per_s measured_rate_constant_ci95_m3_per_s rate_fit_window_s rate_fit_events
 measured_stability_ratio measured_stability_ratio_ci95 fractal_dimension fractal_dimension_error
 fractal_prefactor fractal_dimension_note bonded_at_start percolating gel_time_s pairs status resumes
-brownfloc_version scenario_sha256 wall_time_s particle_steps_per_s threads""".split()
+brownfloc_version scenario_sha256 wall_time_s particle_steps_per_s threads trajectory_file trajectory_bytes
+trajectory_frames""".split()
 TIMESERIES_COLUMNS = ("time_s,time_half_lives,clusters,monomers,doublets,triplets,mean_size,weight_mean_size,"
                       "largest,smoluchowski_clusters,smoluchowski_clusters_transient").split(",")
 CLUSTERS_PREFIX = "cluster_id,size,radius_of_gyration_nm,hydrodynamic_radius_nm,spans_box".split(",")
@@ -84,8 +87,19 @@ def main():
                             problems.append(f"{name}:{r}: {value}")
                     except ValueError:
                         pass  # empty (no value) or true/false
-        if os.path.exists(os.path.join(out, ".lock")):
-            problems.append(".lock left behind after a complete run")
+        trajectory = os.path.join(out, str(summary.get("trajectory_file")))
+        if not os.path.isfile(trajectory) or os.path.getsize(trajectory) != summary.get("trajectory_bytes"):
+            problems.append(f"trajectory: {trajectory} missing or not of trajectory_bytes")
+        if not summary.get("trajectory_frames", 0) >= 2:
+            problems.append(f"trajectory_frames: {summary.get('trajectory_frames')}")
+        leftovers = [n for n in os.listdir(out) if ".tmp-" in n]
+        if leftovers:
+            problems.append(f"temporary files left: {leftovers}")
+        with open(os.path.join(out, ".lock"), "rb") as lock:
+            try:
+                fcntl.flock(lock, fcntl.LOCK_EX | fcntl.LOCK_NB)
+            except OSError:
+                problems.append(".lock still held after the run ended")
     for p in problems[:40]:
         print("FAIL", p)
     print(f"run {scenario}: {'ok' if not problems else f'{len(problems)} problems'}")

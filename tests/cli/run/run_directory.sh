@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # The run directory guards (shared/INTERFACES.md, "Run directory"): a directory that holds a
-# run is refused without --overwrite (exit 3) and taken with it; a refusal leaves no .lock
-# behind; a stale .lock is refused even with --overwrite (exit 3), naming the lock file.
+# run is refused without --overwrite (exit 3) and taken with it; the lock is a kernel
+# advisory lock (flock) on RUN_DIR/.lock: a .lock file left by a killed run blocks nothing,
+# while a live holder makes a second writer fail (exit 3) naming the holder's PID.
 # One thread: nothing here depends on the count, and spare threads only cost time on a busy box.
 #   run_directory.sh EXPECT_SH BROWNFLOC_EXE SCENARIO
 set -u
@@ -27,14 +28,16 @@ step() {  # step DESCRIPTION EXPECTED_EXIT REGEX ARGS...  (REGEX unused for exit
     fi
 }
 step "first run into a new directory" 0 -
-step "second run without --overwrite" 3 "^error: $dir: holds another run \(summary\.json\). choose another directory with -o or pass --overwrite"
-if [ -e "$dir/.lock" ]; then
-    echo "FAIL: the refused run left $dir/.lock behind" >&2
-    failed=1
-    rm -f "$dir/.lock"
-fi
+step "second run without --overwrite" 3 "^error: $dir: holds another run \(summary\.json\). choose another directory with -o, pass --overwrite, or continue it with --resume"
 step "second run with --overwrite" 0 - --overwrite
-touch "$dir/.lock"
-step "stale .lock with --overwrite" 3 "^error: $dir/\.lock: another run is writing into this directory \(lock held\)" --overwrite
-step "stale .lock without --overwrite" 3 "^error: $dir/\.lock: .*lock held"
+echo 999999 > "$dir/.lock"  # a lock file without a holder, as a killed run leaves it
+step "leftover .lock file with --overwrite" 0 - --overwrite
+# A live holder: flock(1) holds the same kind of lock the run takes, the file names PID 4242.
+echo 4242 > "$dir/.lock"
+flock "$dir/.lock" sleep 30 &
+holder=$!
+for _ in $(seq 50); do flock -n "$dir/.lock" true 2>/dev/null || break; sleep 0.1; done
+step "lock held by another process, with --overwrite" 3 "^error: $dir: another brownfloc process \(PID 4242\) is writing into this run directory" --overwrite
+kill "$holder" 2>/dev/null
+wait "$holder" 2>/dev/null
 exit $failed

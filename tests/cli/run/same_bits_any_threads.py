@@ -3,7 +3,8 @@
 byte for byte, and summary.json key for key and bit for bit once the timing fields are
 removed (shared/INTERFACES.md: everything in the run directory is a pure function of
 scenario, seed and binary, except wall_time_s, particle_steps_per_s and threads, and status,
-resumes, date_utc and host, which do not differ between two complete runs here).
+resumes, date_utc and host, which do not differ between two complete runs here). The .lock
+file holds the PID of the process that wrote the directory and is not compared.
 
 Usage: same_bits_any_threads.py BROWNFLOC_EXE SCENARIO [--set ...]
 """
@@ -43,7 +44,7 @@ def main():
             problems.append(f"different files: {files_one} against {files_two}")
         if "summary.json" not in files_one:
             problems.append("no summary.json")
-        for name in sorted(set(files_one) & set(files_two)):
+        for name in sorted(set(files_one) & set(files_two) - {".lock"}):
             with open(os.path.join(one, name), "rb") as f:
                 a = f.read()
             with open(os.path.join(two, name), "rb") as f:
