@@ -29,6 +29,8 @@ struct RunCommandOptions {
     int threads = 0;  // 0: OMP_NUM_THREADS, else all cores
     bool quiet = false;
     bool overwrite = false;
+    std::string resume_dir;  // --resume RUN_DIR
+    bool force = false;      // --force (with --resume)
 };
 
 struct ExportOptions {

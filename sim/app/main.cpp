@@ -7,6 +7,7 @@
 #include "io/file_writing.hpp"
 #include "io/io_error.hpp"
 #include "potentials/input_error.hpp"
+#include "sim/checkpoint.hpp"
 #include "sim/environment_error.hpp"
 #include "trajectory/trajectory_error.hpp"
 
@@ -14,9 +15,10 @@ namespace {
 
 using namespace brownfloc::app;
 
-void add_common(CLI::App& command, CommonOptions& options) {
-    command.add_option("scenario", options.scenario_path, "Scenario file (TOML); see the README for its keys")
-        ->required();
+void add_common(CLI::App& command, CommonOptions& options, bool scenario_required = true) {
+    CLI::Option* scenario =
+        command.add_option("scenario", options.scenario_path, "Scenario file (TOML); see the README for its keys");
+    if (scenario_required) scenario->required();
     command.add_option("--set", options.set_overrides,
                        "Override one scenario value: section.key=value, the value in TOML syntax "
                        "(e.g. --set electrolyte.concentration_mM=25, --set species.2.radius_nm=40); "
@@ -55,7 +57,7 @@ int main(int argc, char** argv) {
     CLI::App* run_command = app.add_subcommand(
         "run", "Brownian-dynamics aggregation run: cluster growth, size distributions, measured rate constant "
                "and stability ratio, fractal dimension; writes a run directory (see the README)");
-    add_common(*run_command, run.common);
+    add_common(*run_command, run.common, false);  // not with --resume
     run_command->add_option("-o,--output", run.output_dir, "Run directory (default runs/<scenario name>-seed<S>)")
         ->type_name("RUN_DIR");
     run_command->add_option("--threads", run.threads, "OpenMP threads (default: OMP_NUM_THREADS, else all cores); "
@@ -64,6 +66,14 @@ int main(int argc, char** argv) {
     run_command->add_option("--seed", run.seed, "Random seed, replacing [run] seed");
     run_command->add_flag("--quiet", run.quiet, "No progress lines on standard error");
     run_command->add_flag("--overwrite", run.overwrite, "Replace the results in a run directory that holds another run");
+    CLI::Option* resume = run_command->add_option("--resume", run.resume_dir,
+                                                  "Continue the run in RUN_DIR from its checkpoint (with --threads, "
+                                                  "--quiet and --force only); the same bits as an uninterrupted run")
+                              ->type_name("RUN_DIR");
+    run_command->add_flag("--force", run.force, "With --resume: accept a checkpoint written by another build "
+                                                "(the bits then differ from an uninterrupted run)");
+    for (const char* other : {"scenario", "--set", "--json", "-o", "--seed", "--overwrite"})
+        resume->excludes(run_command->get_option(other));
 
     // A write past `ulimit -f` then fails with EFBIG (reported, exit 3) instead of killing us.
     brownfloc::io::ignore_file_size_signal();
@@ -96,6 +106,9 @@ int main(int argc, char** argv) {
         if (export_command->parsed()) return run_export(export_options);
     } catch (const brownfloc::InputError& e) {
         std::cerr << "error: " << e.what() << "\n";
+        return exit_bad_input;
+    } catch (const brownfloc::sim::CheckpointFormatError& e) {
+        std::cerr << "error: " << e.what() << "\n";  // a damaged or foreign checkpoint
         return exit_bad_input;
     } catch (const brownfloc::trajectory::TrajectoryFormatError& e) {
         std::cerr << "error: " << e.what() << "\n";  // a damaged or hostile file

@@ -2,6 +2,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <stdexcept>
 
 #include "analysis/cluster_geometry.hpp"
 #include "analysis/union_find.hpp"
@@ -193,6 +194,35 @@ analysis::FractalFit RunRecorder::fractal(const std::vector<ClusterRow>& rows) c
     for (double a : plan_.particles.radii_m) mean_radius += a;
     mean_radius /= double(plan_.particles.radii_m.size());
     return analysis::fit_fractal_dimension(shapes, mean_radius, plan_.model->seed);
+}
+
+RecorderState RunRecorder::state() const {
+    RecorderState s;
+    s.counts = counts_;
+    s.in_window = in_window_;
+    s.captures_seen = captures_seen_;
+    s.monomers = monomers_;
+    s.pair_events = pair_events_;
+    s.pair_exposure = pair_exposure_;
+    s.last_time_s = last_time_s_;
+    s.last = last_;
+    s.last_geometric = last_geometric_;
+    return s;
+}
+
+void RunRecorder::restore(const RecorderState& s) {
+    if (s.monomers.size() != monomers_.size() || s.pair_events.size() != pair_events_.size() ||
+        s.pair_exposure.size() != pair_exposure_.size())
+        throw std::invalid_argument("recorder state: species or pair counts differ from the run's");
+    counts_ = s.counts;
+    in_window_ = s.in_window;
+    captures_seen_ = static_cast<std::size_t>(s.captures_seen);
+    monomers_ = s.monomers;
+    pair_events_ = s.pair_events;
+    pair_exposure_ = s.pair_exposure;
+    last_time_s_ = s.last_time_s;
+    last_ = s.last;
+    last_geometric_ = s.last_geometric;
 }
 
 }  // namespace brownfloc::sim

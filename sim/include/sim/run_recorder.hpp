@@ -36,9 +36,26 @@ struct PairRate {
     double fast_rate_m3_per_s = 0;
 };
 
+// What a RunRecorder has accumulated (for checkpoints): with the engine's state, enough to
+// continue recording bit for bit.
+struct RecorderState {
+    std::vector<CountSample> counts;
+    bool in_window = true;
+    std::uint64_t captures_seen = 0;
+    std::vector<std::int64_t> monomers, pair_events;
+    std::vector<double> pair_exposure;
+    double last_time_s = 0;
+    analysis::SizeStatistics last{};
+    std::optional<std::int64_t> last_geometric;
+};
+
 class RunRecorder {
 public:
     RunRecorder(const RunPlan& plan, const Engine& engine);
+
+    [[nodiscard]] RecorderState state() const;
+    // Continues from a saved state (same plan); std::invalid_argument if it does not fit.
+    void restore(const RecorderState& state);
 
     // Call after every step (cheap unless clusters formed).
     void after_step(const Engine& engine);

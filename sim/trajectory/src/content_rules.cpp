@@ -4,7 +4,7 @@
 #include <cstdint>
 #include <limits>
 
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 #include "trajectory/trajectory_format.hpp"
 
 namespace brownfloc::trajectory::detail {

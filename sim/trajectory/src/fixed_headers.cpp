@@ -2,8 +2,7 @@
 
 #include <cstdio>
 
-#include "byte_packing.hpp"
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 #include "trajectory/crc32c.hpp"
 #include "trajectory/trajectory_error.hpp"
 #include "trajectory/trajectory_format.hpp"

@@ -6,7 +6,7 @@
 #include <algorithm>
 #include <cstdio>
 
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 #include "payload_codec.hpp"
 #include "reader_state.hpp"
 #include "trajectory/crc32c.hpp"

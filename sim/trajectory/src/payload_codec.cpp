@@ -2,10 +2,8 @@
 
 #include <bit>
 
-#include "byte_packing.hpp"
-#include "byte_reader.hpp"
+#include "io_pieces.hpp"
 #include "content_rules.hpp"
-#include "message_text.hpp"
 
 namespace brownfloc::trajectory::detail {
 namespace {
@@ -72,7 +70,7 @@ void encode_header_payload(const TrajectoryHeader& header, std::vector<std::byte
 
 TrajectoryHeader decode_header_payload(std::span<const std::byte> bytes, std::uint64_t base_offset,
                                        const std::string& source) {
-    ByteReader in{bytes, base_offset, source, "header payload"};
+    ByteReader in = trajectory_byte_reader(bytes, base_offset, source, "header payload");
     TrajectoryHeader header;
     header.length_unit = in.string("length_unit");
     header.time_unit = in.string("time_unit");
@@ -120,7 +118,7 @@ void encode_frame_payload(const TrajectoryFrame& frame, const FrameShape& shape,
 
 void decode_frame_payload(std::span<const std::byte> bytes, const FrameShape& shape, std::uint64_t base_offset,
                           const std::string& source, TrajectoryFrame& into) {
-    ByteReader in{bytes, base_offset, source, "frame payload"};
+    ByteReader in = trajectory_byte_reader(bytes, base_offset, source, "frame payload");
     const std::size_t n = shape.particle_count;
     into.step = in.i64("step");
     into.time_s = in.f64("time_s");

@@ -1,6 +1,6 @@
 #include "trajectory/trajectory_error.hpp"
 
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 
 namespace brownfloc::trajectory {
 
@@ -9,3 +9,11 @@ TrajectoryFormatError::TrajectoryFormatError(const std::string& source, std::uin
     : std::runtime_error(detail::located(source, offset_bytes, problem)), offset_bytes_{offset_bytes}, problem_{problem} {}
 
 }  // namespace brownfloc::trajectory
+
+namespace brownfloc::trajectory::detail {
+
+void throw_format_error(const std::string& source, std::uint64_t offset_bytes, const std::string& problem) {
+    throw TrajectoryFormatError(source, offset_bytes, problem);
+}
+
+}  // namespace brownfloc::trajectory::detail

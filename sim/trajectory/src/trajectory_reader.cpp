@@ -3,7 +3,7 @@
 #include <algorithm>
 #include <stdexcept>
 
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 #include "payload_codec.hpp"
 #include "reader_state.hpp"
 #include "trajectory/crc32c.hpp"

@@ -9,7 +9,7 @@
 #include "fixed_headers.hpp"
 #include "io/file_writing.hpp"
 #include "io/io_error.hpp"
-#include "message_text.hpp"
+#include "io_pieces.hpp"
 #include "payload_codec.hpp"
 #include "trajectory/crc32c.hpp"
 #include "trajectory/trajectory_error.hpp"

@@ -4,12 +4,14 @@ byte for byte, and summary.json key for key and bit for bit once the timing fiel
 removed (shared/INTERFACES.md: everything in the run directory is a pure function of
 scenario, seed and binary, except wall_time_s, particle_steps_per_s and threads, and status,
 resumes, date_utc and host, which do not differ between two complete runs here). The .lock
-file holds the PID of the process that wrote the directory and is not compared.
+file holds the PID of the process that wrote the directory and is not compared; of the
+checkpoint, the state section is compared (its bookkeeping section holds the wall time).
 
 Usage: same_bits_any_threads.py BROWNFLOC_EXE SCENARIO [--set ...]
 """
 import json
 import os
+import struct
 import subprocess
 import sys
 import tempfile
@@ -23,6 +25,17 @@ def no_duplicates(pairs):
     if duplicates:
         raise ValueError(f"duplicate keys in summary.json: {', '.join(duplicates)}")
     return dict(pairs)
+
+
+def state_section(data):
+    """The payload of section 2 (state) of a checkpoint (layout in sim/include/sim/checkpoint.hpp)."""
+    at = 16
+    while at + 20 <= len(data):
+        tag, length = struct.unpack_from("<IQ", data, at)
+        if tag == 2:
+            return data[at + 20:at + 20 + length]
+        at += 20 + length
+    return None
 
 
 def run(exe, scenario, extra, directory, threads):
@@ -64,6 +77,9 @@ def main():
                 for key in sa:
                     if sa[key] != sb.get(key):
                         problems.append(f"summary.json: {key}: {sa[key]!r} with 1 thread, {sb.get(key)!r} with 2")
+            elif name == "checkpoint.bfckpt":
+                if state_section(a) != state_section(b):
+                    problems.append("checkpoint.bfckpt: the state sections differ")
             elif a != b:
                 problems.append(f"{name} differs ({len(a)} and {len(b)} bytes)")
         print(f"compared {len(files_one)} files: {', '.join(files_one)}")

@@ -9,7 +9,7 @@
 #include <string>
 #include <string_view>
 
-namespace brownfloc::trajectory::detail {
+namespace brownfloc::io {
 
 inline void append_piece(std::string& text, std::string_view piece) { text.append(piece); }
 inline void append_piece(std::string& text, const char* piece) { text.append(piece); }
@@ -71,4 +71,4 @@ inline std::string quoted(std::string_view raw) {
     return text;
 }
 
-}  // namespace brownfloc::trajectory::detail
+}  // namespace brownfloc::io

@@ -1,19 +1,20 @@
-#include "byte_reader.hpp"
+#include "io/byte_reader.hpp"
 
 #include <bit>
 
-#include "byte_packing.hpp"
-#include "message_text.hpp"
-#include "trajectory/trajectory_error.hpp"
+#include "io/byte_packing.hpp"
+#include "io/message_text.hpp"
+#include <cstdlib>
 
-namespace brownfloc::trajectory::detail {
+namespace brownfloc::io {
 
 ByteReader::ByteReader(std::span<const std::byte> bytes, std::uint64_t base_offset, std::string_view source_name,
-                       std::string_view region)
-    : bytes_{bytes}, base_offset_{base_offset}, source_{source_name}, region_{region} {}
+                       std::string_view region, FormatThrower thrower)
+    : bytes_{bytes}, base_offset_{base_offset}, source_{source_name}, region_{region}, thrower_{thrower} {}
 
 void ByteReader::fail(std::uint64_t offset_bytes, const std::string& problem) const {
-    throw TrajectoryFormatError(source_, offset_bytes, problem);
+    thrower_(source_, offset_bytes, problem);
+    std::abort();  // a thrower that returns breaks its contract
 }
 
 const std::byte* ByteReader::take(std::size_t n, std::string_view field) {
@@ -58,4 +59,4 @@ std::size_t ByteReader::count(std::string_view field, std::size_t item_bytes) {
     return static_cast<std::size_t>(claimed);
 }
 
-}  // namespace brownfloc::trajectory::detail
+}  // namespace brownfloc::io

@@ -2,21 +2,25 @@
 // A bounds-checked cursor over untrusted bytes. Every read checks the bytes left first, and
 // every count is checked against the bytes left BEFORE anything is allocated for it, so a
 // hostile length costs nothing. Failures throw TrajectoryFormatError naming the source, the
-// absolute byte offset and the field.
+// absolute byte offset and the field, through the thrower the file's reader gives (each file
+// kind has its own error type: TrajectoryFormatError, CheckpointFormatError).
 #include <cstddef>
 #include <cstdint>
 #include <span>
 #include <string>
 #include <string_view>
 
-namespace brownfloc::trajectory::detail {
+namespace brownfloc::io {
+
+// Throws the caller's error for "<source>: byte <offset>: <problem>"; must not return.
+using FormatThrower = void (*)(const std::string& source, std::uint64_t offset_bytes, const std::string& problem);
 
 class ByteReader {
 public:
     // bytes start at byte base_offset of source_name; region names them in messages
     // ("header payload", "frame payload").
     ByteReader(std::span<const std::byte> bytes, std::uint64_t base_offset, std::string_view source_name,
-               std::string_view region);
+               std::string_view region, FormatThrower thrower);
 
     std::uint8_t u8(std::string_view field);
     std::uint32_t u32(std::string_view field);
@@ -42,6 +46,7 @@ private:
     std::uint64_t base_offset_;
     std::string source_;
     std::string_view region_;
+    FormatThrower thrower_;
 };
 
-}  // namespace brownfloc::trajectory::detail
+}  // namespace brownfloc::io

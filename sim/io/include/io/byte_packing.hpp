@@ -8,7 +8,7 @@
 #include <string_view>
 #include <vector>
 
-namespace brownfloc::trajectory::detail {
+namespace brownfloc::io {
 
 inline void store_u32(std::byte* at, std::uint32_t value) {
     for (int i = 0; i < 4; ++i) at[i] = static_cast<std::byte>((value >> (8 * i)) & 0xFFu);
@@ -70,4 +70,4 @@ private:
     std::vector<std::byte>& out_;
 };
 
-}  // namespace brownfloc::trajectory::detail
+}  // namespace brownfloc::io
