@@ -4,7 +4,8 @@
 set -euo pipefail
 packages=(build-essential cmake libeigen3-dev libcereal-dev libsfml-dev catch2 libtomlplusplus-dev
           libcli11-dev librandom123-dev libopenmpi-dev openmpi-bin libbenchmark-dev libfmt-dev
-          xvfb xauth libgl1-mesa-dri fonts-dejavu-core python3-numpy python3-scipy libgsl-dev)
+          xvfb xauth libgl1-mesa-dri fonts-dejavu-core python3-numpy python3-scipy libgsl-dev
+          clang libclang-rt-14-dev)
 missing=()
 for p in "${packages[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")

@@ -1,11 +1,14 @@
 // brownfloc: command-line entry point. The only file that includes CLI11.
 #include <CLI/CLI.hpp>
+#include <cerrno>
+#include <cstdlib>
 #include <exception>
 #include <iostream>
 
 #include "commands.hpp"
 #include "io/file_writing.hpp"
 #include "io/io_error.hpp"
+#include "io/write_faults.hpp"
 #include "potentials/input_error.hpp"
 #include "sim/checkpoint.hpp"
 #include "sim/environment_error.hpp"
@@ -77,6 +80,10 @@ int main(int argc, char** argv) {
 
     // A write past `ulimit -f` then fails with EFBIG (reported, exit 3) instead of killing us.
     brownfloc::io::ignore_file_size_signal();
+    // Test-only: BROWNFLOC_TEST_FAIL_WRITE=N makes the N-th write of this process fail with
+    // ENOSPC (disk full), through the io library's fault seam.
+    if (const char* n = std::getenv("BROWNFLOC_TEST_FAIL_WRITE"); n && *n)
+        brownfloc::io::testing::fail_nth_write(std::strtoull(n, nullptr, 10), ENOSPC);
     ExportOptions export_options;
     CLI::App* export_command = app.add_subcommand(
         "export", "One frame of a run's trajectory as CSV: id, species, radius_nm, x_nm, y_nm, z_nm, cluster, "

@@ -2,6 +2,7 @@
 
 #include <fcntl.h>
 #include <sys/file.h>
+#include <sys/statvfs.h>
 #include <unistd.h>
 
 #include <cerrno>
@@ -75,6 +76,12 @@ RunDirectory::RunDirectory(const fs::path& dir, Mode mode) : dir_(dir) {
                                                      "continue it with --resume"));
     if (mode == Mode::overwrite)
         for (const char* name : run_outputs) fs::remove(dir_ / name, ec);
+}
+
+std::optional<std::uint64_t> RunDirectory::available_bytes() const {
+    struct statvfs fs_info {};
+    if (::statvfs(dir_.c_str(), &fs_info) != 0) return std::nullopt;
+    return static_cast<std::uint64_t>(fs_info.f_bavail) * static_cast<std::uint64_t>(fs_info.f_frsize);
 }
 
 void RunDirectory::write_file(const std::string& name, const std::string& content) const {

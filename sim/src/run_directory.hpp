@@ -5,7 +5,9 @@
 // ends, however it ends: a killed run never blocks its resumption. A second writer is refused
 // (EnvironmentError, exit 3) with the holder's PID, which the holder writes into the file.
 // Readers (export, the viewer) never take it.
+#include <cstdint>
 #include <filesystem>
+#include <optional>
 #include <string>
 
 #include "io/unique_fd.hpp"
@@ -26,6 +28,8 @@ public:
     // Replaces a whole file atomically (temporary file, fsync, rename, directory fsync).
     // Throws io::IoError.
     void write_file(const std::string& name, const std::string& content) const;
+    // Bytes available to us on the directory's file system (statvfs); empty if unknown.
+    [[nodiscard]] std::optional<std::uint64_t> available_bytes() const;
 
 private:
     std::filesystem::path dir_;

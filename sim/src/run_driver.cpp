@@ -214,6 +214,7 @@ public:
                 trajectory_->append(trajectory_frame(*engine_));
                 ++next_snapshot_;
             }
+            if (first) write_results("running");  // the state where this process starts, for anyone looking in
             if (engine_->steps_taken() >= plan_.total_steps) return 0;
             // A checkpoint at the start (step 0, or where a resumed run begins) and then every
             // checkpoint_interval_wall_s; never between an output and its step.
@@ -351,6 +352,27 @@ RunResult finish_session(RunSession& session, const std::string& output_dir) {
     return result;
 }
 
+// What a run will write, roughly [bytes]: the trajectory (header, and per frame 64 bytes plus
+// 16 or 28 per particle), two checkpoints at once (old and new, ~300 bytes per particle) and
+// the CSVs (~300 bytes per output row and size class).
+std::uint64_t estimated_output_bytes(const Scenario& s, const RunPlan& plan, std::size_t outputs, std::size_t snapshots) {
+    const double n = double(plan.particle_count);
+    const double per_particle = s.output.trajectory_precision.value_or("float32") == "float64" ? 28.0 : 16.0;
+    const double trajectory = 20e3 * double(plan.model->pair_kinds.size()) + 12.0 * n + double(snapshots) * (64.0 + per_particle * n);
+    const double checkpoints = 2.0 * 300.0 * n;
+    const double csv = double(outputs) * 300.0 * 20.0;
+    return static_cast<std::uint64_t>(trajectory + checkpoints + csv);
+}
+
+void warn_if_short_of_space(const RunDirectory& dir, std::uint64_t needed, std::ostream* out) {
+    const std::optional<std::uint64_t> free = dir.available_bytes();
+    if (!out || !free || needed <= *free) return;
+    *out << "warning: the run will write about " << short_number(double(needed) / 1e6) << " MB, more than the "
+         << short_number(double(*free) / 1e6) << " MB free for " << dir.path().string()
+         << "; if the disk fills the run stops (exit 3) with its last checkpoint, and --resume continues it once "
+            "there is room\n";
+}
+
 // The first line where two resolved scenario texts differ, as "[section] key".
 std::string first_difference(const std::string& a, const std::string& b) {
     std::istringstream sa(a), sb(b);
@@ -389,6 +411,9 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     if (msg) print_plan(*msg, plan, early.output_dir);
 
     RunDirectory dir(early.output_dir, options.overwrite ? RunDirectory::Mode::overwrite : RunDirectory::Mode::new_run);
+    warn_if_short_of_space(dir, estimated_output_bytes(scenario, plan, output_steps(scenario, plan).size(),
+                                                       snapshot_steps(scenario, plan).size()),
+                           options.messages);
     std::string resolved = resolved_scenario_toml(scenario);
     dir.write_file("scenario.toml", resolved);
     omp_set_num_threads(std::max(1, options.threads));

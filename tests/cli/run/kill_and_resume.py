@@ -11,7 +11,8 @@
    resumes; its frames are numbered 0, 1, 2, ... and their steps rise strictly.
 3. SIGTERM is exit 143 with status "interrupted" and a resumable checkpoint; --resume of a
    finished run says "already complete" (exit 0); a scenario.toml edited after the start is
-   refused naming the key (exit 2); a damaged checkpoint is exit 2.
+   refused naming the key (exit 2); a damaged checkpoint is exit 2; the run directory may be
+   moved between a kill and the resume.
 
 Usage: kill_and_resume.py BROWNFLOC_EXE SCENARIO
 """
@@ -24,7 +25,7 @@ import sys
 import tempfile
 import time
 
-SETS = ["run.particles=1500", "run.end_half_lives=4", "output.snapshots=40"]
+SETS = ["run.particles=600", "run.end_half_lives=3", "output.snapshots=30"]
 NOT_COMPARED = {"wall_time_s", "particle_steps_per_s", "threads", "status", "resumes"}
 FILES = ["timeseries.csv", "size_distribution.csv", "clusters.csv", "trajectory.bftraj", "scenario.toml"]
 
@@ -108,11 +109,12 @@ def main():
         # some frames (not during a checkpoint: the pause hook is not armed).
         run = subprocess.Popen(command(exe, scenario, killed, 1), env=every(env, 0.2))
         trajectory = os.path.join(killed, "trajectory.bftraj")
-        deadline = time.time() + 60
+        full_size = os.path.getsize(os.path.join(straight, "trajectory.bftraj"))
+        deadline = time.time() + 300
         while time.time() < deadline and run.poll() is None:
-            if os.path.exists(trajectory) and os.path.getsize(trajectory) > 200_000:
+            if os.path.exists(trajectory) and os.path.getsize(trajectory) > 0.3 * full_size:
                 break
-            time.sleep(0.02)
+            time.sleep(0.01)
         if run.poll() is not None:
             problems.append("the first run finished before it could be killed; make the case longer")
         run.send_signal(signal.SIGKILL)
@@ -125,9 +127,14 @@ def main():
             problems.append("the resumed run never reached a checkpoint")
         run.send_signal(signal.SIGKILL)
         run.wait()
-        # SIGTERM of the next resume: exit 143, status interrupted.
+        # SIGTERM of the next resume once it steps (it rewrites summary.json as it starts):
+        # exit 143, status interrupted.
+        summary_path = os.path.join(killed, "summary.json")
+        before = os.stat(summary_path).st_mtime_ns
         run = subprocess.Popen([exe, "run", "--resume", killed, "--threads", "1", "--quiet"], env=env)
-        time.sleep(0.8)
+        deadline = time.time() + 300
+        while time.time() < deadline and run.poll() is None and os.stat(summary_path).st_mtime_ns == before:
+            time.sleep(0.01)
         run.send_signal(signal.SIGTERM)
         code = run.wait()
         if code not in (0, 143):
@@ -137,6 +144,10 @@ def main():
                 status = json.load(f).get("status")
             if status != "interrupted":
                 problems.append(f"SIGTERM: status {status!r}")
+        # A run directory may be moved between a kill and the resume.
+        moved = killed + "-moved"
+        os.rename(killed, moved)
+        killed, trajectory = moved, os.path.join(moved, "trajectory.bftraj")
         final = subprocess.run([exe, "run", "--resume", killed, "--threads", "1", "--quiet"], env=env)
         if final.returncode != 0:
             problems.append(f"final resume: exit {final.returncode}")

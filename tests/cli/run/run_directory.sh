@@ -34,10 +34,11 @@ echo 999999 > "$dir/.lock"  # a lock file without a holder, as a killed run leav
 step "leftover .lock file with --overwrite" 0 - --overwrite
 # A live holder: flock(1) holds the same kind of lock the run takes, the file names PID 4242.
 echo 4242 > "$dir/.lock"
-flock "$dir/.lock" sleep 30 &
+flock "$dir/.lock" sleep 30 > /dev/null 2>&1 &  # no shared output pipe: ctest would wait for it
 holder=$!
 for _ in $(seq 50); do flock -n "$dir/.lock" true 2>/dev/null || break; sleep 0.1; done
 step "lock held by another process, with --overwrite" 3 "^error: $dir: another brownfloc process \(PID 4242\) is writing into this run directory" --overwrite
+pkill -P "$holder" 2>/dev/null  # the sleep that flock started
 kill "$holder" 2>/dev/null
 wait "$holder" 2>/dev/null
 exit $failed
