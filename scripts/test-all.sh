@@ -73,9 +73,15 @@ stage_fuzz() {
   return $status
 }
 
+# Budgets on the 2-core CI machine [s]: release 15 min, sanitizers 10 min, fuzz 5 min.
+declare -A budget_s=([release]=900 [sanitizers]=600 [fuzz]=300)
+summary=""
 for stage in "${stages[@]}"; do
   start=$(date +%s)
   echo "=== stage $stage ==="
   "stage_$stage"
-  echo "=== stage $stage: $(( $(date +%s) - start )) s ==="
+  took=$(( $(date +%s) - start ))
+  echo "=== stage $stage: $took s ==="
+  summary+="$stage ${took} s (budget ${budget_s[$stage]} s); "
 done
+echo "stage times: ${summary%; }"
