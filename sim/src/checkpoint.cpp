@@ -103,18 +103,6 @@ void put_section(std::vector<std::byte>& out, std::uint32_t tag, const std::vect
 
 // --- reading ---
 
-std::vector<double> get_f64s(io::ByteReader& r, std::string_view field) {
-    const std::size_t n = r.count(field, 8);
-    std::vector<double> v(n);
-    for (double& x : v) x = r.f64(field);
-    return v;
-}
-std::vector<std::uint32_t> get_u32s(io::ByteReader& r, std::string_view field) {
-    const std::size_t n = r.count(field, 4);
-    std::vector<std::uint32_t> v(n);
-    for (std::uint32_t& x : v) x = r.u32(field);
-    return v;
-}
 std::vector<std::int64_t> get_i64s(io::ByteReader& r, std::string_view field) {
     const std::size_t n = r.count(field, 8);
     std::vector<std::int64_t> v(n);
@@ -133,34 +121,34 @@ EngineState get_engine(io::ByteReader& r) {
     s.max_member_diffusion_m2_per_s = r.f64("largest member diffusion");
     s.min_relative_gap_last_step = r.f64("smallest gap of the last step");
     s.min_relative_gap_ever = r.f64("smallest gap");
-    s.x_m = get_f64s(r, "x");
-    s.y_m = get_f64s(r, "y");
-    s.z_m = get_f64s(r, "z");
-    s.body = get_u32s(r, "body");
-    s.species = get_u32s(r, "species");
-    s.next_member = get_u32s(r, "next member");
-    s.radius_m = get_f64s(r, "radius");
-    s.list_x_m = get_f64s(r, "list x");
-    s.list_y_m = get_f64s(r, "list y");
-    s.list_z_m = get_f64s(r, "list z");
-    s.offset_x_m = get_f64s(r, "offset x");
-    s.offset_y_m = get_f64s(r, "offset y");
-    s.offset_z_m = get_f64s(r, "offset z");
-    s.centre_x_m = get_f64s(r, "centre x");
-    s.centre_y_m = get_f64s(r, "centre y");
-    s.centre_z_m = get_f64s(r, "centre z");
-    s.body_size = get_u32s(r, "body size");
-    s.diffusion_t_m2_per_s = get_f64s(r, "translational diffusion");
-    s.diffusion_r_per_s = get_f64s(r, "rotational diffusion");
-    s.hydrodynamic_radius_m = get_f64s(r, "hydrodynamic radius");
-    s.amplitude_t_m = get_f64s(r, "translational amplitude");
-    s.amplitude_r = get_f64s(r, "rotational amplitude");
-    s.mobility_t_m_per_N = get_f64s(r, "translational mobility");
-    s.mobility_r_per_N_m = get_f64s(r, "rotational mobility");
+    s.x_m = r.f64_array("x");
+    s.y_m = r.f64_array("y");
+    s.z_m = r.f64_array("z");
+    s.body = r.u32_array("body");
+    s.species = r.u32_array("species");
+    s.next_member = r.u32_array("next member");
+    s.radius_m = r.f64_array("radius");
+    s.list_x_m = r.f64_array("list x");
+    s.list_y_m = r.f64_array("list y");
+    s.list_z_m = r.f64_array("list z");
+    s.offset_x_m = r.f64_array("offset x");
+    s.offset_y_m = r.f64_array("offset y");
+    s.offset_z_m = r.f64_array("offset z");
+    s.centre_x_m = r.f64_array("centre x");
+    s.centre_y_m = r.f64_array("centre y");
+    s.centre_z_m = r.f64_array("centre z");
+    s.body_size = r.u32_array("body size");
+    s.diffusion_t_m2_per_s = r.f64_array("translational diffusion");
+    s.diffusion_r_per_s = r.f64_array("rotational diffusion");
+    s.hydrodynamic_radius_m = r.f64_array("hydrodynamic radius");
+    s.amplitude_t_m = r.f64_array("translational amplitude");
+    s.amplitude_r = r.f64_array("rotational amplitude");
+    s.mobility_t_m_per_N = r.f64_array("translational mobility");
+    s.mobility_r_per_N_m = r.f64_array("rotational mobility");
     const std::size_t spans = r.count("spans_box", 1);
     s.spans_box.resize(spans);
     for (std::uint8_t& x : s.spans_box) x = r.boolean("spans_box") ? 1 : 0;
-    s.bodies = get_u32s(r, "bodies");
+    s.bodies = r.u32_array("bodies");
     const std::size_t captures = r.count("captures", 33);
     s.captures.resize(captures);
     for (CaptureEvent& c : s.captures) {
@@ -188,7 +176,7 @@ RecorderState get_recorder(io::ByteReader& r) {
     s.captures_seen = r.u64("captures seen");
     s.monomers = get_i64s(r, "monomers");
     s.pair_events = get_i64s(r, "pair events");
-    s.pair_exposure = get_f64s(r, "pair exposure");
+    s.pair_exposure = r.f64_array("pair exposure");
     s.last_time_s = r.f64("last time");
     s.last.clusters = r.i64("clusters");
     s.last.monomers = r.i64("monomers");

@@ -59,4 +59,21 @@ std::size_t ByteReader::count(std::string_view field, std::size_t item_bytes) {
     return static_cast<std::size_t>(claimed);
 }
 
+std::vector<double> ByteReader::f64_array(std::string_view field) {
+    const std::size_t n = count(field, 8);
+    const std::byte* at = take(8 * n, field);
+    std::vector<double> values(n);
+    for (std::size_t i = 0; i < n; ++i) values[i] = std::bit_cast<double>(load_u64(at + 8 * i));
+    return values;
+}
+
+std::vector<std::uint32_t> ByteReader::u32_array(std::string_view field) { return u32_items(count(field, 4), field); }
+
+std::vector<std::uint32_t> ByteReader::u32_items(std::size_t n, std::string_view field) {
+    const std::byte* at = take(4 * n, field);
+    std::vector<std::uint32_t> values(n);
+    for (std::size_t i = 0; i < n; ++i) values[i] = load_u32(at + 4 * i);
+    return values;
+}
+
 }  // namespace brownfloc::io

@@ -11,19 +11,6 @@ namespace {
 // The fewest bytes a pair record can take (both curves empty): u32 u32 f64 f64 u8 f64 f64 u64 u64.
 constexpr std::size_t min_pair_record_bytes = 4 + 4 + 8 + 8 + 1 + 8 + 8 + 8 + 8;
 
-void read_f64_array(ByteReader& in, std::string_view field, std::vector<double>& values) {
-    const std::size_t count = in.count(field, 8);
-    const std::byte* at = in.take(8 * count, field);
-    values.resize(count);
-    for (std::size_t i = 0; i < count; ++i) values[i] = std::bit_cast<double>(load_u64(at + 8 * i));
-}
-
-void read_u32_items(ByteReader& in, std::size_t count, std::string_view field, std::vector<std::uint32_t>& values) {
-    const std::byte* at = in.take(4 * count, field);
-    values.resize(count);
-    for (std::size_t i = 0; i < count; ++i) values[i] = load_u32(at + 4 * i);
-}
-
 PairRecord read_pair(ByteReader& in, const std::string& name) {
     PairRecord pair;
     pair.species_i = in.u32(message(name, ".species_i"));
@@ -33,8 +20,8 @@ PairRecord read_pair(ByteReader& in, const std::string& name) {
     pair.has_barrier = in.boolean(message(name, ".has_barrier"));
     pair.barrier_kT = in.f64(message(name, ".barrier_kT"));
     pair.barrier_gap_nm = in.f64(message(name, ".barrier_gap_nm"));
-    read_f64_array(in, message(name, ".gap_nm"), pair.gap_nm);
-    read_f64_array(in, message(name, ".energy_kT"), pair.energy_kT);
+    pair.gap_nm = in.f64_array(message(name, ".gap_nm"));
+    pair.energy_kT = in.f64_array(message(name, ".energy_kT"));
     return pair;
 }
 
@@ -84,8 +71,8 @@ TrajectoryHeader decode_header_payload(std::span<const std::byte> bytes, std::ui
     const std::size_t species_count = in.count("species_names", 4);
     header.species_names.reserve(species_count);
     for (std::size_t s = 0; s < species_count; ++s) header.species_names.push_back(in.string(message("species_names[", s, "]")));
-    read_f64_array(in, "radius_nm", header.radius_nm);
-    read_u32_items(in, in.count("species", 4), "species", header.species);
+    header.radius_nm = in.f64_array("radius_nm");
+    header.species = in.u32_array("species");
     header.scenario_toml = in.string("scenario_toml");
     const std::size_t pair_count = in.count("pairs", min_pair_record_bytes);
     header.pairs.reserve(pair_count);
@@ -131,11 +118,11 @@ void decode_frame_payload(std::span<const std::byte> bytes, const FrameShape& sh
         for (std::size_t i = 0; i < 3 * n; ++i)
             into.positions_nm[i] = static_cast<double>(std::bit_cast<float>(load_u32(at + 4 * i)));
     }
-    read_u32_items(in, n, "cluster", into.cluster);
+    into.cluster = in.u32_items(n, "cluster");
     const std::uint64_t count_at = in.offset();
     const std::size_t spanning = in.count("spanning_clusters", 4);
     if (spanning > n) in.fail(count_at, message(spanning, " spanning clusters: there cannot be more than N = ", n));
-    read_u32_items(in, spanning, "spanning_clusters", into.spanning_clusters);
+    into.spanning_clusters = in.u32_items(spanning, "spanning_clusters");
     into.cluster_count = in.u32("cluster_count");
     into.largest_cluster = in.u32("largest_cluster");
     if (in.remaining() != 0)

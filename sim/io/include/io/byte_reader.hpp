@@ -9,6 +9,7 @@
 #include <span>
 #include <string>
 #include <string_view>
+#include <vector>
 
 namespace brownfloc::io {
 
@@ -32,6 +33,11 @@ public:
     std::string string(std::string_view field);
     // A u64 item count, refused unless count * item_bytes fit in the bytes left.
     std::size_t count(std::string_view field, std::size_t item_bytes);
+    // Arrays as ByteWriter writes them: a u64 count (checked as count() does) then the items;
+    // u32_items reads `count` items without a stored count.
+    std::vector<double> f64_array(std::string_view field);
+    std::vector<std::uint32_t> u32_array(std::string_view field);
+    std::vector<std::uint32_t> u32_items(std::size_t count, std::string_view field);
     // The next n bytes (checked), for arrays read item by item by the caller.
     const std::byte* take(std::size_t n, std::string_view field);
 
