@@ -55,7 +55,7 @@ std::string format_g(double v) {
 
 }  // namespace
 
-RunPlan plan_run(const Scenario& s, std::uint64_t seed) {
+RunPlan plan_run(const Scenario& s, std::uint64_t seed, StopRequested stop_requested) {
     RunPlan plan;
     const auto density = number_density_per_m3(s);
     if (!density)
@@ -174,7 +174,7 @@ RunPlan plan_run(const Scenario& s, std::uint64_t seed) {
             "version will add.");
     }
     plan.total_steps = static_cast<std::int64_t>(steps);
-    plan.particles = place_particles(radii, species, box, *model, seed, s.source);
+    plan.particles = place_particles(radii, species, box, *model, seed, s.source, stop_requested);
     plan.model = std::move(model);
     return plan;
 }

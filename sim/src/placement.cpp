@@ -16,7 +16,8 @@ constexpr std::uint64_t max_attempts_per_particle = 200000;
 }
 
 InitialParticles place_particles(const std::vector<double>& radii, const std::vector<std::uint32_t>& species,
-                                 double box, const EngineModel& model, std::uint64_t seed, const std::string& source) {
+                                 double box, const EngineModel& model, std::uint64_t seed, const std::string& source,
+                                 StopRequested stop_requested) {
     const std::size_t n = radii.size();
     const double half_capture = 0.5 * model.max_capture_gap_m();
     double occupied = 0;
@@ -62,6 +63,7 @@ InitialParticles place_particles(const std::vector<double>& radii, const std::ve
     if (m < 3) cells.assign(1, {});  // small box: one cell holding every particle
     auto cell_of = [&](const Vec3& p) { return m >= 3 ? cell_index(coord(p[0]), coord(p[1]), coord(p[2])) : std::size_t{0}; };
     for (std::size_t slot = 0; slot < n; ++slot) {
+        if (stop_requested != nullptr && slot % 4096 == 0 && stop_requested()) throw SetupStopped{};
         bool placed = false;
         for (std::uint64_t attempt = 0; attempt < max_attempts_per_particle && !placed; ++attempt) {
             const auto bits = philox_block(seed, attempt, static_cast<std::uint32_t>(slot), NoiseStream::placement);

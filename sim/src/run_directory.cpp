@@ -6,6 +6,7 @@
 #include <unistd.h>
 
 #include <cerrno>
+#include <cstdlib>
 #include <cstring>
 #include <span>
 #include <system_error>
@@ -78,7 +79,11 @@ RunDirectory::RunDirectory(const fs::path& dir, Mode mode) : dir_(dir) {
         for (const char* name : run_outputs) fs::remove(dir_ / name, ec);
 }
 
+// Test-only: BROWNFLOC_TEST_FREE_BYTES=N stands for the free space (no test may fill a disk
+// or mount a small one to see the warning).
 std::optional<std::uint64_t> RunDirectory::available_bytes() const {
+    if (const char* test = std::getenv("BROWNFLOC_TEST_FREE_BYTES"); test && *test)
+        return std::strtoull(test, nullptr, 10);
     struct statvfs fs_info {};
     if (::statvfs(dir_.c_str(), &fs_info) != 0) return std::nullopt;
     return static_cast<std::uint64_t>(fs_info.f_bavail) * static_cast<std::uint64_t>(fs_info.f_frsize);

@@ -393,6 +393,15 @@ std::string first_difference(const std::string& a, const std::string& b) {
     }
 }
 
+// The plan, or nothing when SIGINT or SIGTERM arrived during the (long) placement.
+std::optional<RunPlan> plan_or_stop(const Scenario& scenario, std::uint64_t seed) {
+    try {
+        return plan_run(scenario, seed, [] { return SignalGuard::received() != 0; });
+    } catch (const SetupStopped&) {
+        return std::nullopt;
+    }
+}
+
 }  // namespace
 
 RunResult execute_run(const Scenario& input, const RunOptions& options) {
@@ -400,13 +409,14 @@ RunResult execute_run(const Scenario& input, const RunOptions& options) {
     Scenario scenario = input;
     if (options.seed) scenario.run.seed = *options.seed;
     const std::uint64_t seed = scenario.run.seed;
-    RunPlan plan = plan_run(scenario, seed);
     RunResult early;
     early.output_dir = options.output_dir.empty() ? default_run_directory(scenario.source, seed) : options.output_dir;
-    if (const int signal = SignalGuard::received(); signal != 0) {
+    std::optional<RunPlan> planned = plan_or_stop(scenario, seed);
+    if (const int signal = SignalGuard::received(); !planned || signal != 0) {
         early.interrupted_by = signal;  // nothing written yet: nothing to keep
         return early;
     }
+    RunPlan plan = std::move(*planned);
     std::ostream* msg = options.quiet ? nullptr : options.messages;
     if (msg) print_plan(*msg, plan, early.output_dir);
 
@@ -453,11 +463,12 @@ RunResult resume_run(const ResumeOptions& options) {
                          "; a run continues only with the scenario it started with (start a new run to change it)");
     Scenario scenario = parse_scenario(checkpoint.scenario_toml, dir.file("scenario.toml").string());
     scenario.run.seed = checkpoint.seed;
-    RunPlan plan = plan_run(scenario, checkpoint.seed);
-    if (const int signal = SignalGuard::received(); signal != 0) {
-        result.interrupted_by = signal;
+    std::optional<RunPlan> planned = plan_or_stop(scenario, checkpoint.seed);
+    if (const int signal = SignalGuard::received(); !planned || signal != 0) {
+        result.interrupted_by = signal;  // the checkpoint on disk stays the one to resume from
         return result;
     }
+    RunPlan plan = std::move(*planned);
     if (msg) {
         *msg << "brownfloc run --resume: " << options.run_dir << " from step " << checkpoint.engine.step << " of "
              << plan.total_steps << " (resume " << checkpoint.resumes + 1 << ")\n";

@@ -1,6 +1,6 @@
 #pragma once
 // SIGINT and SIGTERM during a run: the handler only records the signal; the run checks
-// between steps (and between set-up phases), writes a checkpoint and exits 130 / 143. A
+// between steps (and between set-up phases, and during placement), writes a checkpoint and exits 130 / 143. A
 // second signal while that checkpoint is being written ends the process at once: the
 // checkpoint is replaced atomically, so the previous one stays valid.
 namespace brownfloc::sim {

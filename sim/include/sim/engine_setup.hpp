@@ -33,7 +33,11 @@ struct RunPlan {
 // Builds the model and the initial state. Throws InputError (naming the scenario file and
 // key) for a run that cannot be done: no [suspension], a capture gap below min_gap, a
 // concentration at which random placement cannot succeed, predicted steps above max_steps.
-// seed is the run's seed ([run] seed, or --seed).
-[[nodiscard]] RunPlan plan_run(const Scenario& scenario, std::uint64_t seed);
+// seed is the run's seed ([run] seed, or --seed). stop_requested, when given, is asked every
+// few thousand particles during placement (seconds per million particles); when it answers
+// true, plan_run throws SetupStopped and leaves nothing behind.
+using StopRequested = bool (*)();
+struct SetupStopped {};
+[[nodiscard]] RunPlan plan_run(const Scenario& scenario, std::uint64_t seed, StopRequested stop_requested = nullptr);
 
 }  // namespace brownfloc::sim

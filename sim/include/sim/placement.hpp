@@ -9,6 +9,7 @@
 
 #include "sim/engine.hpp"
 #include "sim/engine_model.hpp"
+#include "sim/engine_setup.hpp"
 
 namespace brownfloc::sim {
 
@@ -17,9 +18,11 @@ namespace brownfloc::sim {
 inline constexpr double max_placement_volume_fraction = 0.30;
 
 // Throws InputError naming source when the concentration is too high to place the
-// particles (checked before trying, and again if a particle finds no room).
+// particles (checked before trying, and again if a particle finds no room). Asks
+// stop_requested (if given) every 4096 particles and throws SetupStopped when it says true.
 [[nodiscard]] InitialParticles place_particles(const std::vector<double>& radii_m,
                                                const std::vector<std::uint32_t>& species, double box_length_m,
-                                               const EngineModel& model, std::uint64_t seed, const std::string& source);
+                                               const EngineModel& model, std::uint64_t seed, const std::string& source,
+                                               StopRequested stop_requested = nullptr);
 
 }  // namespace brownfloc::sim

@@ -4,7 +4,9 @@ fills part-way (the io library's fault seam makes the N-th write fail with ENOSP
 that passes `ulimit -f` (EFBIG, SIGXFSZ ignored), stop with exit 3 and a message naming the
 path and the system's reason; the trajectory still gives its intact frames, the last
 checkpoint stays valid, and --resume with room again ends with the same bytes as an
-uninterrupted run.
+uninterrupted run. A run whose estimated output exceeds the free space warns at the start,
+naming the sizes and the directory, and still runs (a test-only hook stands for the free
+space: BROWNFLOC_TEST_FREE_BYTES); with room, no warning.
 
 Usage: disk_full.py BROWNFLOC_EXE SCENARIO
 """
@@ -59,6 +61,14 @@ def main():
             with open(os.path.join(directory, "summary.json")) as f:
                 if json.load(f).get("status") != "complete":
                     problems.append(f"{label}: not complete after the resume")
+        for free_bytes, warned in (("1000", True), (str(1 << 50), False)):
+            directory = os.path.join(scratch, "space-" + free_bytes)
+            done = subprocess.run(run_args(exe, scenario, directory), capture_output=True, text=True,
+                                  env=dict(env, BROWNFLOC_TEST_FREE_BYTES=free_bytes))
+            said = "warning: the run will write about" in done.stderr and "MB free for " + directory in done.stderr
+            if done.returncode != 0 or said != warned:
+                problems.append(f"free space {free_bytes} bytes: exit {done.returncode}, warned {said} "
+                                f"(expected {warned}): {done.stderr.strip()}")
     for p in problems:
         print("FAIL", p)
     print("write failures:", "ok" if not problems else f"{len(problems)} problems")
