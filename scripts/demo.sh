@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # The demo: DLVO interaction and stability of a latex in salt, the CCC of a pigment
 # dispersion against hard-water calcium, and a short aggregation run of a silica sol after
-# a salt shock (under a minute on two cores). Run from the project root after building.
+# a salt shock (under a minute on two cores), and a picture of its last frame. Run from the
+# project root after building.
 set -euo pipefail
 bin=build/bin/brownfloc
 "$bin" dlvo scenarios/001-latex-in-salt.toml --curve build/latex-curve.csv
@@ -9,3 +10,14 @@ echo
 "$bin" ccc scenarios/002-pigment-coating.toml
 echo
 "$bin" run scenarios/005-silica-sol-salt-shock.toml -o build/demo-run --overwrite
+echo
+# A picture of the run's last frame with the plots beside it. brownfloc-view needs an X
+# display even to render off screen; without one, the render runs under xvfb-run.
+view=(build/bin/brownfloc-view build/demo-run --render build/demo-run/last-frame.png --plots --select largest)
+if [ -n "${DISPLAY:-}" ]; then
+  png=$("${view[@]}")
+else
+  png=$(xvfb-run -a -s "-screen 0 1280x800x24" "${view[@]}")
+fi
+echo "brownfloc-view: the last frame, with the plots, is in $png"
+echo "Replay the run in a window (press H for the keys): build/bin/brownfloc-view build/demo-run"

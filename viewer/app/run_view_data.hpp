@@ -1,0 +1,25 @@
+#pragma once
+// What both the window and --render need from a run before drawing: the followed trajectory,
+// the seed for the fractal fit's bootstrap, the count series for the clusters plot, and the
+// state notes ("writing...", damaged frames skipped).
+#include <filesystem>
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "data/count_series.hpp"
+#include "data/live_trajectory.hpp"
+
+namespace brownfloc::viewer {
+
+// Opens the run directory or trajectory file; ViewerInputError (exit 2) when it cannot be shown.
+[[nodiscard]] std::shared_ptr<LiveTrajectory> open_run(const std::filesystem::path& run);
+
+// The clusters/N0 series: from timeseries.csv when the run has one, else from every frame's
+// cluster count (read one frame at a time).
+[[nodiscard]] CountSeries load_count_series(const LiveTrajectory& trajectory);
+
+// Notes on the state of the file, for the warning lines of the scene.
+[[nodiscard]] std::vector<std::string> trajectory_notes(const LiveTrajectory& trajectory);
+
+}  // namespace brownfloc::viewer
