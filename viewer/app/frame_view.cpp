@@ -48,6 +48,21 @@ std::vector<std::string> wrapped_lines(const std::string& text, std::size_t widt
     return lines;
 }
 
+// viewer/README.md "Plots": a curve is drawn up to the first sample after which |U| stays
+// below 1 % of its largest magnitude, and at least to twice the barrier and capture gaps, so
+// that the barrier region is not squeezed against the axis by a long flat tail.
+std::size_t interesting_samples(const trajectory::PairRecord& pair) {
+    const std::size_t n = pair.gap_nm.size();
+    double largest = 0;
+    for (double u : pair.energy_kT) largest = std::max(largest, std::fabs(u));
+    std::size_t kept = n;
+    while (kept > 2 && std::fabs(pair.energy_kT[kept - 1]) < 0.01 * largest) --kept;
+    kept = std::min(n, kept + 1);
+    const double at_least_nm = 2 * std::max(pair.capture_gap_nm, pair.has_barrier ? pair.barrier_gap_nm : 0.0);
+    while (kept < n && pair.gap_nm[kept - 1] < at_least_nm) ++kept;
+    return kept;
+}
+
 }  // namespace
 
 std::vector<Sphere> build_spheres(const trajectory::TrajectoryHeader& header, const trajectory::TrajectoryFrame& frame,
@@ -129,8 +144,9 @@ std::array<PlotSpec, 4> build_plot_specs(const trajectory::TrajectoryHeader& hea
             curve.label += '-';
             curve.label += header.species_names.at(pair.species_j);
         }
-        curve.gap_nm = pair.gap_nm;
-        curve.energy_kT = pair.energy_kT;
+        const std::size_t kept = interesting_samples(pair);
+        curve.gap_nm.assign(pair.gap_nm.begin(), pair.gap_nm.begin() + std::ptrdiff_t(kept));
+        curve.energy_kT.assign(pair.energy_kT.begin(), pair.energy_kT.begin() + std::ptrdiff_t(kept));
         const std::pair<double, double> barrier{pair.barrier_gap_nm, pair.barrier_kT};
         if (pair.has_barrier &&
             std::find(barriers_marked.begin(), barriers_marked.end(), barrier) == barriers_marked.end()) {

@@ -57,6 +57,7 @@ sf::Image draw_frame(FrameView& view, sf::RenderTexture& canvas, const LiveTraje
                      const LoadedFrame& shown, const CountSeries& counts, const ViewSettings& settings) {
     SceneText text = describe_frame(trajectory.header(), shown, trajectory.frame_count(), settings);
     text.warnings = trajectory_notes(trajectory);
+    if (auto status = run_status_note(trajectory)) text.warnings.push_back(*status);
     view.draw(canvas, trajectory.header(), shown, counts, settings, text);
     canvas.display();
     return canvas.getTexture().copyToImage();

@@ -88,6 +88,7 @@ private:
     CountSeries counts_;
     FrameCountCollector collector_;  // without timeseries.csv: one count per frame, read once
     std::size_t counted_frames_ = 0;
+    std::optional<std::string> status_note_;  // from summary.json, re-read when the file changes
     std::optional<LoadedFrame> shown_;
     std::size_t wanted_ = 0;
     bool follow_last_ = true;
@@ -113,6 +114,7 @@ Window::Window(const ViewOptions& options) : options_(options), view_(font_) {
     settings_.camera = options.camera;
     settings_.plots = true;
     refresh_counts(true);
+    status_note_ = run_status_note(*trajectory_);
     const std::size_t count = trajectory_->frame_count();
     follow_last_ = options.frame.last;
     wanted_ = options.frame.last ? (count == 0 ? 0 : count - 1) : std::min(options.frame.index, count == 0 ? 0 : count - 1);
@@ -164,6 +166,7 @@ void Window::poll_file() {
     const PollResult result = trajectory_->poll();
     if (result.frames_added == 0 && !result.reloaded) return;
     refresh_counts(result.reloaded);
+    status_note_ = run_status_note(*trajectory_);
     const std::size_t count = trajectory_->frame_count();
     if (count == 0) {
         shown_.reset();
@@ -396,6 +399,7 @@ void Window::draw() {
     } else {
         SceneText text = describe_frame(trajectory_->header(), *shown_, trajectory_->frame_count(), settings_);
         text.warnings = trajectory_notes(*trajectory_);
+        if (status_note_) text.warnings.push_back(*status_note_);
         text.bottom_reserved_px = TimelineBar::height_px;
         if (export_)
             text.warnings.push_back(io::message("exporting frame ", export_->next, " of ", export_->count, " to ",

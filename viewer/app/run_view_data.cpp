@@ -5,6 +5,7 @@
 #include "io/message_text.hpp"
 #include "run_files/csv_table.hpp"
 #include "run_files/run_file_error.hpp"
+#include "run_files/run_summary_view.hpp"
 #include "trajectory/trajectory_error.hpp"
 #include "viewer_errors.hpp"
 
@@ -56,6 +57,20 @@ std::vector<std::string> trajectory_notes(const LiveTrajectory& trajectory) {
         if (warning.find("skipped") != std::string::npos) ++damaged;  // the torn-tail warning is the state above
     if (damaged > 0) notes.push_back(io::message(damaged, damaged == 1 ? " damaged frame skipped" : " damaged frames skipped"));
     return notes;
+}
+
+std::optional<std::string> run_status_note(const LiveTrajectory& trajectory) {
+    const std::filesystem::path& summary = trajectory.location().summary_json;
+    if (summary.empty()) return std::nullopt;
+    try {
+        const run_files::RunSummaryView view = run_files::read_run_summary(summary);
+        if (!view.status || *view.status == run_files::RunStatus::complete) return std::nullopt;
+        if (*view.status == run_files::RunStatus::interrupted)
+            return std::string("run interrupted: continue it with brownfloc run --resume");
+        return std::string("run in progress");
+    } catch (const std::exception&) {
+        return std::nullopt;
+    }
 }
 
 }  // namespace brownfloc::viewer

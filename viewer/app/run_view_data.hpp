@@ -4,6 +4,7 @@
 // state notes ("writing...", damaged frames skipped).
 #include <filesystem>
 #include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -21,5 +22,10 @@ namespace brownfloc::viewer {
 
 // Notes on the state of the file, for the warning lines of the scene.
 [[nodiscard]] std::vector<std::string> trajectory_notes(const LiveTrajectory& trajectory);
+
+// From summary.json, when the run directory has one: "run interrupted: continue it with
+// brownfloc run --resume", "run in progress", or nothing for a complete run (or a summary
+// that cannot be read: the trajectory is what the viewer shows).
+[[nodiscard]] std::optional<std::string> run_status_note(const LiveTrajectory& trajectory);
 
 }  // namespace brownfloc::viewer

@@ -15,6 +15,7 @@
 #include "hand_built_runs.hpp"
 #include "headless_render.hpp"
 #include "render_checks.hpp"
+#include "run_view_data.hpp"
 #include "view_options.hpp"
 #include "viewer_errors.hpp"
 
@@ -151,4 +152,57 @@ TEST_CASE("a sequence writes every K-th frame and never overwrites", "[viewer][s
     // no temporary file left behind
     for (const auto& entry : std::filesystem::directory_iterator(dir / "frames"))
         CHECK(entry.path().filename().string().rfind("frame_", 0) == 0);
+}
+
+TEST_CASE("an interrupted or running run says so from its summary.json", "[viewer][live]") {
+    const test::TempDir dir("bfview");
+    test::write_hand_run(dir / "run", {{PlacedSphere{c, c, c, 30.0, 0, 0}}});
+    CHECK_FALSE(viewer::run_status_note(*viewer::open_run(dir / "run")).has_value());  // no summary.json
+    std::ofstream(dir / "run" / "summary.json") << R"({"status": "interrupted", "particles": 1})";
+    CHECK_THAT(viewer::run_status_note(*viewer::open_run(dir / "run")).value_or(""),
+               Catch::Contains("brownfloc run --resume"));
+    std::ofstream(dir / "run" / "summary.json") << R"({"status": "running"})";
+    CHECK(viewer::run_status_note(*viewer::open_run(dir / "run")).value_or("") == "run in progress");
+    std::ofstream(dir / "run" / "summary.json") << R"({"status": "complete"})";
+    CHECK_FALSE(viewer::run_status_note(*viewer::open_run(dir / "run")).has_value());
+    std::ofstream(dir / "run" / "summary.json") << R"({"status": )";  // damaged: ignored
+    CHECK_FALSE(viewer::run_status_note(*viewer::open_run(dir / "run")).has_value());
+}
+
+TEST_CASE("a trajectory file alone renders and a damaged frame is skipped with a note", "[viewer][bad_input]") {
+    const test::TempDir dir("bfview");
+    std::vector<std::vector<PlacedSphere>> frames;
+    for (int k = 0; k < 3; ++k) frames.push_back({PlacedSphere{c - 100 + 100.0 * k, c, c, 30.0, 0, 0}});
+    test::write_hand_run(dir / "alone", frames);
+    const std::filesystem::path file = dir / "alone" / "trajectory.bftraj";
+    // Flip one byte inside frame 1's payload. Layout (DEVELOPERS.md): a 32-byte file header whose
+    // bytes 16-23 hold the header payload length; then frames of a 32-byte header and a payload,
+    // all three the same size here.
+    {
+        std::fstream f(file, std::ios::in | std::ios::out | std::ios::binary);
+        unsigned char length_bytes[8];
+        f.seekg(16);
+        f.read(reinterpret_cast<char*>(length_bytes), 8);
+        std::uint64_t header_payload = 0;
+        for (int i = 0; i < 8; ++i) header_payload |= std::uint64_t(length_bytes[i]) << (8 * i);
+        const std::uint64_t frames_start = 32 + header_payload;
+        const std::uint64_t frame_bytes = (std::filesystem::file_size(file) - frames_start) / 3;
+        const auto at = std::streamoff(frames_start + frame_bytes + 32 + 5);
+        char byte = 0;
+        f.seekg(at);
+        f.read(&byte, 1);
+        byte = char(byte ^ 0x5A);
+        f.seekp(at);
+        f.write(&byte, 1);
+    }
+    const std::shared_ptr<viewer::LiveTrajectory> trajectory = viewer::open_run(file);
+    CHECK(trajectory->frame_count() == 2);
+    const std::vector<std::string> notes = viewer::trajectory_notes(*trajectory);
+    REQUIRE(notes.size() == 1);
+    CHECK(notes[0] == "1 damaged frame skipped");
+    ViewOptions options = options_for(file, dir / "alone.png");
+    std::string messages;
+    REQUIRE(render_status(options, messages) == 0);
+    CHECK_THAT(messages, Catch::Contains("warning:") && Catch::Contains("skipped"));
+    CHECK(std::filesystem::exists(dir / "alone.png"));
 }

@@ -6,7 +6,9 @@
 
 #include <SFML/Graphics/Image.hpp>
 
+#include <algorithm>
 #include <cmath>
+#include <vector>
 #include <cstdio>
 #include <fstream>
 #include <sstream>
@@ -83,9 +85,22 @@ TEST_CASE("clusters over N0 of one half at one half-life falls on the computed p
     // The current-time marker at t = 3.
     CHECK(has_colour_near(image, int(std::floor(858 + 412 * 0.75)), 20 + 120, viewer::plot_colours::current_time, 1, 12));
 
-    // Plot 4 (interaction): outer y = 600, data rect x 858 width 412, y 620 height 150; x range [0.2, 30] nm
-    // (first and last gap of the header's curve); the barrier at 3 nm.
-    const double barrier_x = 858 + 412 * (3.0 - 0.2) / (30.0 - 0.2);
+    // Plot 4 (interaction): outer y = 600, data rect x 858 width 412, y 620 height 150; x range from the
+    // first gap, 0.2 nm, to the sample after the last one with |U| >= 1 % of the largest |U|, and at
+    // least twice the barrier gap (viewer/README.md "Layout"); the barrier at 3 nm.
+    std::vector<double> gap, energy;
+    for (int k = 0; k < 512; ++k) {
+        gap.push_back(0.2 + 29.8 * double(k) / 511.0);
+        energy.push_back(12.0 * std::exp(-std::pow((gap.back() - 3.0) / 1.2, 2)) - 1.0 / gap.back());
+    }
+    double largest = 0;
+    for (double u : energy) largest = std::max(largest, std::fabs(u));
+    std::size_t last = 0;
+    for (std::size_t k = 0; k < energy.size(); ++k)
+        if (std::fabs(energy[k]) >= 0.01 * largest) last = k;
+    double x_end = gap[std::min(last + 1, gap.size() - 1)];
+    REQUIRE(x_end > 6.0);  // beyond twice the barrier gap already
+    const double barrier_x = 858 + 412 * (3.0 - 0.2) / (x_end - 0.2);
     int rows_with_marker = 0;
     for (int j = 620 + 20; j < 620 + 150 - 5; ++j)
         if (has_colour_near(image, int(std::floor(barrier_x)), j, viewer::plot_colours::barrier_marker, 1, 12))
