@@ -4,6 +4,8 @@
 // output that cannot be written), 1 internal error.
 #include <CLI/CLI.hpp>
 
+#include <SFML/Window/Context.hpp>
+
 #include <exception>
 #include <iostream>
 #include <string>
@@ -99,6 +101,11 @@ int main(int argc, char** argv) {
             std::cerr << "error: brownfloc-view " << no_display_message << '\n';
             return exit_environment;
         }
+        // One context for the whole process keeps SFML's X connection open: SFML closes it
+        // whenever its last context goes and reopens it for the next, and under load an X
+        // server refuses a good share of such quick reconnections (measured with Xvfb on 2 busy
+        // cores: a third of 300 open/close cycles failed), which SFML answers with an abort.
+        const sf::Context keep_display_open;
         if (options.render_png) return render_headless(options, std::cout, std::cerr);
         return run_window(options);
     } catch (const ViewerUsageError& error) {
