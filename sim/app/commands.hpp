@@ -45,5 +45,6 @@ int run_dlvo(const DlvoOptions& options);
 int run_ccc(const CommonOptions& options);
 int run_run(const RunCommandOptions& options);
 int run_export(const ExportOptions& options);
+int run_shelf_life(const CommonOptions& options);
 
 }  // namespace brownfloc::app

@@ -98,6 +98,13 @@ int main(int argc, char** argv) {
                                "Write to this file (replaced atomically) instead of standard output")
         ->type_name("FILE");
 
+    CommonOptions shelf_life;
+    CLI::App* shelf_life_command = app.add_subcommand(
+        "shelf-life", "Time to an aggregation criterion at storage temperatures ([storage]; defaults 25, 30, 40, "
+                      "5 degC), its acceleration with temperature, and the added salt the dispersion tolerates "
+                      "before that time falls to the target; a model estimate, not a stability test");
+    add_common(*shelf_life_command, shelf_life);
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
@@ -111,6 +118,7 @@ int main(int argc, char** argv) {
         if (ccc_command->parsed()) return run_ccc(ccc);
         if (run_command->parsed()) return run_run(run);
         if (export_command->parsed()) return run_export(export_options);
+        if (shelf_life_command->parsed()) return run_shelf_life(shelf_life);
     } catch (const brownfloc::InputError& e) {
         std::cerr << "error: " << e.what() << "\n";
         return exit_bad_input;

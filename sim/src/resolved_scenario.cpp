@@ -4,6 +4,7 @@
 #include <cstdint>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "scenario_schema.hpp"
 #include "scenario_text.hpp"
@@ -37,6 +38,14 @@ public:
         if (v) text(key, *v);
     }
     void boolean(const char* key, bool v) { line(key, v ? "true" : "false"); }
+    void numbers(const char* key, const std::vector<double>& values) {
+        std::string text = "[";
+        for (std::size_t i = 0; i < values.size(); ++i) {
+            if (i > 0) text += ", ";
+            text += number_text(values[i]);
+        }
+        line(key, text + "]");
+    }
     void line(const char* key, const std::string& value_toml, const std::string& note = {}) {
         out_ += std::string(key) + " = " + value_toml + (note.empty() ? "" : "  # " + note) + "\n";
     }
@@ -122,6 +131,29 @@ void write_settings(TomlWriter& w, const Scenario& s) {
     }
 }
 
+// Written whole, every key, only when the input had a [storage] section: a scenario without
+// one resolves to the same text as before [storage] existed.
+void write_storage(TomlWriter& w, const Scenario& s) {
+    if (!s.storage_given) return;
+    const StorageSettings& st = s.storage;
+    w.section("[storage]");
+    w.numbers("temperatures_C", st.temperatures_C);
+    w.text("surface_hold", st.surface_hold);
+    w.text("criterion", st.criterion);
+    w.number("criterion_value", st.criterion_value);
+    w.number("target_days", st.target_days);
+    w.boolean("hydrodynamic_correction", st.hydrodynamic_correction);
+    w.text("optics", st.optics);
+    w.number("scattering_angle_deg", st.scattering_angle_deg);
+    w.number("wavelength_nm", st.wavelength_nm);
+    w.number("medium_refractive_index", st.medium_refractive_index);
+    w.number("fractal_dimension", st.fractal_dimension);
+    w.text("second_salt", st.second_salt);
+    w.integer("samples", st.samples);
+    w.integer("band_samples", st.band_samples);
+    w.number("particle_density_kg_per_m3", st.particle_density_kg_per_m3);
+}
+
 }  // namespace
 
 std::string resolved_scenario_toml(const Scenario& scenario) {
@@ -131,6 +163,7 @@ std::string resolved_scenario_toml(const Scenario& scenario) {
     write_species(w, scenario);
     write_conditions(w, scenario);
     write_settings(w, scenario);
+    write_storage(w, scenario);
     return w.str();
 }
 

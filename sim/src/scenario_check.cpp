@@ -93,11 +93,17 @@ std::string unknown_key_text(const SectionSpec& spec, std::string_view key, bool
                 home = &other;  // the first: [particle] before [[species]]
                 break;
             }
+    const auto near = nearest_name(key, spec.key_names());
+    if (near) text += "; did you mean '" + std::string(*near) + "'?";
     if (home) {
+        // With a near key here as well, both: temperature_C in [storage] is more likely a slip
+        // for temperatures_C than a [medium] key in the wrong place, but either may be meant.
         const std::string name(home->name);
-        text += "; " + key_text(key) + " belongs in " + (home->array_of_tables ? "[[" + name + "]]" : "[" + name + "]");
-    } else if (const auto near = nearest_name(key, spec.key_names())) {
-        text += "; did you mean '" + std::string(*near) + "'?";
+        text += near ? " (" : "; ";
+        text += key_text(key);
+        text += " belongs in ";
+        text += home->array_of_tables ? "[[" + name + "]]" : "[" + name + "]";
+        if (near) text += ")";
     }
     return text + "; known keys: " + join_names(spec.key_names());
 }
@@ -189,6 +195,34 @@ void check_value(const std::string& source, std::string_view section, std::strin
             }
             return;
         }
+        case ValueKind::number_list: {
+            std::string allowed = "must be an array of ";
+            if (spec.min_items == spec.max_items) {
+                allowed += std::to_string(spec.min_items);
+            } else {
+                allowed += std::to_string(spec.min_items);
+                allowed += " to ";
+                allowed += std::to_string(spec.max_items);
+            }
+            allowed += " numbers";
+            if (spec.min || spec.max) allowed += ", each " + range_text(spec);
+            if (!value.is_array()) bad(allowed + ", not " + type_phrase(value));
+            const toml::array& array = *value.as_array();
+            if (array.size() < spec.min_items || array.size() > spec.max_items)
+                bad(allowed + "; it holds " + std::to_string(array.size()));
+            // Each element is checked as a number with the list's bounds and named by its
+            // place, counted from 1 as [[species]] and ions are: "temperatures_C[2]".
+            KeySpec element_spec = spec;
+            element_spec.kind = ValueKind::number;
+            for (std::size_t i = 0; i < array.size(); ++i) {
+                std::string element_key(key);
+                element_key += '[';
+                element_key += std::to_string(i + 1);
+                element_key += ']';
+                check_value(source, section, element_key, element_spec, array[i]);
+            }
+            return;
+        }
         case ValueKind::ion_list:
             if (!value.is_array())
                 bad("must be an array of tables such as [{ valence = 1, concentration_mM = 10 }, "
@@ -257,6 +291,14 @@ std::optional<std::int64_t> integer_at(const toml::table& table, std::string_vie
 std::optional<bool> boolean_at(const toml::table& table, std::string_view key) {
     const toml::node* node = table.get(key);
     return node ? std::optional<bool>(node->as_boolean()->get()) : std::nullopt;
+}
+
+std::optional<std::vector<double>> numbers_at(const toml::table& table, std::string_view key) {
+    const toml::node* node = table.get(key);
+    if (!node) return std::nullopt;
+    std::vector<double> values;
+    for (const toml::node& element : *node->as_array()) values.push_back(as_double(element));
+    return values;
 }
 
 std::optional<std::string> string_at(const toml::table& table, std::string_view key) {

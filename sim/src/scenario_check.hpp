@@ -61,5 +61,7 @@ void require(const std::string& source, const toml::table& table, std::string_vi
 [[nodiscard]] std::optional<std::int64_t> integer_at(const toml::table& table, std::string_view key);
 [[nodiscard]] std::optional<bool> boolean_at(const toml::table& table, std::string_view key);
 [[nodiscard]] std::optional<std::string> string_at(const toml::table& table, std::string_view key);
+// A ValueKind::number_list value (integers read as numbers).
+[[nodiscard]] std::optional<std::vector<double>> numbers_at(const toml::table& table, std::string_view key);
 
 }  // namespace brownfloc::sim::detail

@@ -11,14 +11,51 @@ constexpr Bound lt(double v) { return {v, false}; }
 constexpr Bound le(double v) { return {v, true}; }
 
 KeySpec number(std::string_view key, std::optional<Bound> min = {}, std::optional<Bound> max = {}) {
-    return KeySpec{key, ValueKind::number, min, max, false, {}};
+    return KeySpec{key, ValueKind::number, min, max, false, {}, 0, 0};
 }
 KeySpec integer(std::string_view key, std::optional<Bound> min = {}, std::optional<Bound> max = {}) {
-    return KeySpec{key, ValueKind::integer, min, max, false, {}};
+    return KeySpec{key, ValueKind::integer, min, max, false, {}, 0, 0};
 }
-KeySpec of_kind(std::string_view key, ValueKind kind) { return KeySpec{key, kind, {}, {}, false, {}}; }
+KeySpec of_kind(std::string_view key, ValueKind kind) { return KeySpec{key, kind, {}, {}, false, {}, 0, 0}; }
 KeySpec choice(std::string_view key, std::vector<std::string_view> choices) {
-    return KeySpec{key, ValueKind::choice, {}, {}, false, std::move(choices)};
+    return KeySpec{key, ValueKind::choice, {}, {}, false, std::move(choices), 0, 0};
+}
+// An array of min_items..max_items numbers, each within [min, max] as bounded.
+KeySpec number_list(std::string_view key, std::size_t min_items, std::size_t max_items, std::optional<Bound> min,
+                    std::optional<Bound> max) {
+    return KeySpec{key, ValueKind::number_list, min, max, false, {}, min_items, max_items};
+}
+
+// [storage]: the conditions of a shelf-life estimate (`brownfloc shelf-life`). Ranges here
+// catch slips and impossible values only; each library that uses a value checks what it
+// needs (the criteria library the range of criterion_value per criterion, the storage
+// conditions the 0-100 degC range of the water property fits).
+SectionSpec storage_section() {
+    return {"storage",
+            false,
+            {// Water-based dispersions: below 0 degC only supercooled or with antifreeze.
+             number_list("temperatures_C", 1, max_storage_temperatures, ge(-20), le(100)),
+             choice("surface_hold", {"potential", "charge"}),
+             choice("criterion", {"count-drop", "mean-size", "aggregated-fraction", "z-average-growth"}),
+             number("criterion_value", gt(0)),
+             number("target_days", gt(0)),
+             of_kind("hydrodynamic_correction", ValueKind::boolean),
+             choice("optics", {"rayleigh", "rgd"}),
+             number("scattering_angle_deg", gt(0), le(180)),
+             // Light scattering from the near ultraviolet to the near infrared; a value outside
+             // is a unit slip (um or m typed as nm).
+             number("wavelength_nm", gt(100), lt(2000)),
+             // Liquids lie within 1.3-1.8; 3 leaves room for any medium while catching slips.
+             number("medium_refractive_index", ge(1), lt(3)),
+             // Mass fractal dimension of clusters: 1 a rod, 3 a compact sphere.
+             number("fractal_dimension", gt(1), le(3)),
+             of_kind("second_salt", ValueKind::salt_formula),
+             integer("samples", ge(1), le(1e7)),
+             integer("band_samples", ge(1), le(1e6)),
+             // 25000 kg/m3: above the densest element (osmium, 22590 kg/m3); larger is a slip.
+             number("particle_density_kg_per_m3", gt(0), lt(25000))},
+            {},
+            {}};
 }
 
 // Particle keys shared by [particle] and [[species]]. The upper bounds catch unit slips
@@ -83,6 +120,7 @@ std::vector<SectionSpec> build_sections() {
                          choice("trajectory_precision", {"float32", "float64"}),
                          number("checkpoint_interval_wall_s", gt(0))},
                         {{"snapshot_interval_s", "snapshots"}}, {}});
+    sections.push_back(storage_section());
     return sections;
 }
 
@@ -138,7 +176,7 @@ const SectionSpec& ion_spec() {
     // [Fe(CN)6]4-.
     static const SectionSpec spec{"ions",
                                   false,
-                                  {KeySpec{"valence", ValueKind::integer, ge(-4), le(4), true, {}},
+                                  {KeySpec{"valence", ValueKind::integer, ge(-4), le(4), true, {}, 0, 0},
                                    number("concentration_mM", ge(0), le(max_concentration_mM))},
                                   {},
                                   {}};

@@ -3,6 +3,7 @@
 // hold, with its type, allowed range or values, and which keys exclude each other. The
 // parser, the `--set` overrides and the checks all read this one table, so a new key is
 // added here once. The keys and rules are those of shared/INTERFACES.md, "Scenario file".
+#include <cstddef>
 #include <optional>
 #include <string_view>
 #include <utility>
@@ -18,6 +19,7 @@ enum class ValueKind {
     choice,        // one of KeySpec::choices
     salt_formula,  // a string that potentials::parse_salt_formula accepts
     ion_list,      // array of { valence, concentration_mM } tables (checked by the electrolyte reader)
+    number_list,   // array of KeySpec::min_items..max_items numbers, each finite and within min/max
 };
 
 struct Bound {
@@ -31,6 +33,7 @@ struct KeySpec {
     std::optional<Bound> min, max;
     bool nonzero = false;                   // integers: 0 excluded (ion valence)
     std::vector<std::string_view> choices;  // ValueKind::choice
+    std::size_t min_items = 0, max_items = 0;  // ValueKind::number_list: how many elements
 };
 
 struct SectionSpec {
@@ -66,5 +69,8 @@ inline constexpr double electroneutrality_tolerance = 1e-9;  // relative to sum 
 // water property fits do not hold, so both viscosity_mPa_s and relative_permittivity must
 // then be given.
 inline constexpr double celsius_offset_K = 273.15;
+// [storage] temperatures_C: the shelf-life table is read by people, and 16 temperatures
+// already cover every storage condition of ICH Q1A(R2) (2003) several times over.
+inline constexpr std::size_t max_storage_temperatures = 16;
 
 }  // namespace brownfloc::sim::detail

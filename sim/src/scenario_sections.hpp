@@ -17,7 +17,7 @@ namespace brownfloc::sim::detail {
 void read_species(const std::string& source, const toml::table& root, Scenario& scenario);
 // [suspension], [medium], [electrolyte] (scenario_conditions.cpp).
 void read_conditions(const std::string& source, const toml::table& root, Scenario& scenario);
-// [interaction], [run], [output] (scenario_settings.cpp).
+// [interaction], [run], [output], [storage] (scenario_settings.cpp).
 void read_settings(const std::string& source, const toml::table& root, Scenario& scenario);
 
 // Records "[section] key = value" in scenario.defaults_applied.

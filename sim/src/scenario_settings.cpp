@@ -1,4 +1,8 @@
-// [interaction], [run], [output]: how the physics is evaluated and the simulation run.
+// [interaction], [run], [output]: how the physics is evaluated and the simulation run;
+// [storage]: the conditions of a shelf-life estimate.
+#include <string>
+#include <vector>
+
 #include "scenario_check.hpp"
 #include "scenario_sections.hpp"
 #include "scenario_text.hpp"
@@ -81,12 +85,98 @@ void read_output(const toml::table& table, OutputSettings& output) {
     output.checkpoint_interval_wall_s = number_at(table, "checkpoint_interval_wall_s");
 }
 
+std::string numbers_toml(const std::vector<double>& values) {
+    std::string text = "[";
+    for (std::size_t i = 0; i < values.size(); ++i) {
+        if (i > 0) text += ", ";
+        text += number_text(values[i]);
+    }
+    return text + "]";
+}
+
+// Reads one [storage] key into field, or notes the default the field already holds.
+class StorageReader {
+public:
+    StorageReader(const toml::table& table, Scenario& s) : table_(table), s_(s) {}
+
+    void number(std::string_view key, double& field) {
+        if (const auto v = number_at(table_, key)) {
+            field = *v;
+        } else {
+            note_default(s_, "storage", key, number_text(field));
+        }
+    }
+    void integer(std::string_view key, std::int64_t& field) {
+        if (const auto v = integer_at(table_, key)) {
+            field = *v;
+        } else {
+            note_default(s_, "storage", key, std::to_string(field));
+        }
+    }
+    void boolean(std::string_view key, bool& field) {
+        if (const auto v = boolean_at(table_, key)) {
+            field = *v;
+        } else {
+            note_default(s_, "storage", key, field ? "true" : "false");
+        }
+    }
+    void text(std::string_view key, std::string& field) {
+        if (const auto v = string_at(table_, key)) {
+            field = *v;
+        } else {
+            note_default(s_, "storage", key, toml_string_literal(field));
+        }
+    }
+    void numbers(std::string_view key, std::vector<double>& field) {
+        if (auto v = numbers_at(table_, key)) {
+            field = std::move(*v);
+        } else {
+            note_default(s_, "storage", key, numbers_toml(field));
+        }
+    }
+
+private:
+    const toml::table& table_;
+    Scenario& s_;
+};
+
+// Only a scenario with a [storage] section records anything about storage: the defaults of
+// StorageSettings hold otherwise, silently, so that scenarios for other commands (and the
+// resolved scenario.toml of a run) do not change.
+void read_storage(const toml::table& root, Scenario& s) {
+    const toml::node* node = root.get("storage");
+    s.storage = StorageSettings{};
+    s.storage_given = node != nullptr;
+    if (!s.storage_given) return;
+    const toml::table& table = *node->as_table();  // check_sections has made sure it is one
+    StorageSettings& st = s.storage;
+    StorageReader read(table, s);
+    read.numbers("temperatures_C", st.temperatures_C);
+    read.text("surface_hold", st.surface_hold);
+    read.text("criterion", st.criterion);
+    // No default noted: it depends on the criterion and is the criteria library's to choose.
+    st.criterion_value = number_at(table, "criterion_value");
+    read.number("target_days", st.target_days);
+    read.boolean("hydrodynamic_correction", st.hydrodynamic_correction);
+    read.text("optics", st.optics);
+    read.number("scattering_angle_deg", st.scattering_angle_deg);
+    read.number("wavelength_nm", st.wavelength_nm);
+    read.number("medium_refractive_index", st.medium_refractive_index);
+    read.number("fractal_dimension", st.fractal_dimension);
+    read.text("second_salt", st.second_salt);
+    read.integer("samples", st.samples);
+    read.integer("band_samples", st.band_samples);
+    // Optional: without it the settling distance is not computed.
+    st.particle_density_kg_per_m3 = number_at(table, "particle_density_kg_per_m3");
+}
+
 }  // namespace
 
 void read_settings(const std::string& /*source*/, const toml::table& root, Scenario& scenario) {
     read_interaction(section_or_empty(root, "interaction"), scenario);
     read_run(section_or_empty(root, "run"), scenario);
     read_output(section_or_empty(root, "output"), scenario.output);
+    read_storage(root, scenario);
 }
 
 void note_default(Scenario& scenario, std::string_view section, std::string_view key, const std::string& value_toml) {

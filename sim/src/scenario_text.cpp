@@ -4,6 +4,7 @@
 #include <array>
 #include <charconv>
 #include <cmath>
+#include <cstdint>
 #include <cstdio>
 
 namespace brownfloc::sim::detail {
@@ -173,6 +174,8 @@ std::string number_text(double v) {
 }
 
 std::string bound_text(double v) {
+    // Whole numbers in full up to 1e15 ("10000000", not "1e+07"): integer bounds read better so.
+    if (v == std::trunc(v) && std::fabs(v) < 1e15) return std::to_string(static_cast<std::int64_t>(v));
     std::array<char, 64> buf{};
     const auto end = std::to_chars(buf.data(), buf.data() + buf.size(), v, std::chars_format::general, 6).ptr;
     std::string text(buf.data(), end);

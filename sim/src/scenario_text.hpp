@@ -46,7 +46,8 @@ struct TextProblem {
 // The shortest decimal that reads back as exactly v, in TOML float syntax: "0.2", "1e-20",
 // "25.0", "inf", "-inf", "nan". Locale-independent (std::to_chars).
 [[nodiscard]] std::string number_text(double v);
-// A bound quoted in "what is allowed" texts: 6 significant digits, "0.64", "1e-17", "5000".
+// A bound quoted in "what is allowed" texts: 6 significant digits, "0.64", "1e-17", "5000";
+// whole numbers below 1e15 in full ("10000000").
 [[nodiscard]] std::string bound_text(double v);
 
 // Levenshtein distance between a and b, ignoring ASCII case.

@@ -35,6 +35,12 @@ const char* rule_of_thumb_caution() {
 
 std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const std::vector<double>& temperatures_K,
                                                  SurfaceHold hold, bool hydrodynamic_correction) {
+    return storage_conditions(scenario, temperatures_K, hold, hydrodynamic_correction, scenario);
+}
+
+std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const std::vector<double>& temperatures_K,
+                                                 SurfaceHold hold, bool hydrodynamic_correction,
+                                                 const Scenario& charge_reference) {
     if (temperatures_K.empty()) throw InputError(scenario.source + ": [storage] temperatures_C: at least one is needed");
     if (temperatures_K.size() > 1) {
         if (scenario.viscosity_mPa_s)
@@ -51,13 +57,15 @@ std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const
     const potentials::Electrolyte electrolyte = electrolyte_of(scenario);
     const std::size_t species = scenario.species.size();
 
-    // Surface charge densities at the scenario's own temperature, where the potentials were given.
+    // Surface charge densities at the reference's own temperature and electrolyte, where the
+    // potentials were given.
     std::vector<double> charge_C_per_m2(species, 0.0);
     if (hold == SurfaceHold::charge) {
-        const potentials::Medium own = medium_of(scenario);
+        const potentials::Medium own = medium_of(charge_reference);
+        const potentials::Electrolyte own_ions = electrolyte_of(charge_reference);
         for (std::size_t s = 0; s < species; ++s)
             charge_C_per_m2[s] = potentials::grahame_surface_charge_C_per_m2(
-                scenario.species[s].surface_potential_mV * 1e-3, electrolyte, own);
+                charge_reference.species[s].surface_potential_mV * 1e-3, own_ions, own);
     }
 
     std::vector<StorageCondition> out;

@@ -1,9 +1,9 @@
 #!/usr/bin/env python3
-"""End-to-end check of `brownfloc dlvo|ccc --json` on one scenario: the output is one JSON
+"""End-to-end check of `brownfloc dlvo|ccc|shelf-life --json` on one scenario: the output is one JSON
 document holding every key the project's INTERFACES promise, numbers are finite, and a null
 always comes with a `<key>_note`.
 
-Usage: check_json_keys.py dlvo|ccc BROWNFLOC_EXE SCENARIO [--set ...]
+Usage: check_json_keys.py dlvo|ccc|shelf-life BROWNFLOC_EXE SCENARIO [--set ...]
 """
 import json
 import math
@@ -19,6 +19,13 @@ DLVO_PAIR_KEYS = ["kappa_a", "barrier_kT", "barrier_gap_nm", "barrier_at_min_gap
 DLVO_TOP_KEYS = ["ionic_strength_mM", "debye_length_nm", "pairs", "warnings", "caution", "defaults_applied"]
 CCC_KEYS = ["ccc_mM", "ccc_definition", "ccc_by_valence_mM", "schulze_hardy_exponent", "ccc_kinetic_mM",
             "dlog10W_dlog10c", "warnings", "caution"]
+SHELF_TOP_KEYS = ["criterion", "criterion_value", "target_days", "surface_hold", "hydrodynamic_correction",
+                  "conditions", "rule_of_thumb_note", "ccc_mM", "salt_margin", "settling_distance_m",
+                  "not_modelled", "cautions", "warnings", "input_sha256", "seed", "samples", "caution"]
+SHELF_CONDITION_KEYS = ["temperature_C", "stability_ratio", "log10_stability_ratio", "half_life_fast_s",
+                        "half_life_s", "time_to_criterion_s", "beyond_range", "p5_time_over_target",
+                        "acceleration_vs_reference", "acceleration_from_medium", "acceleration_from_stability",
+                        "rule_of_thumb_factor", "added_salt_to_target_mM", "added_second_salt_to_target_mM"]
 
 
 def check_values(node, path, problems, noted_by_parent=False):
@@ -48,6 +55,15 @@ def main():
             problems += [f"pairs.{i}: missing {k}" for k in DLVO_PAIR_KEYS + ["species"] if k not in pair]
         if len(doc.get("pairs", [])) == 1:
             problems += [f"one species: missing top-level {k}" for k in DLVO_PAIR_KEYS if k not in doc]
+    elif command == "shelf-life":
+        problems += [f"missing {k}" for k in SHELF_TOP_KEYS if k not in doc]
+        for i, c in enumerate(doc.get("conditions", [])):
+            problems += [f"conditions.{i}: missing {k}" for k in SHELF_CONDITION_KEYS if k not in c]
+            times = c.get("time_to_criterion_s", {})
+            if set(times) != {"p5", "p50", "p95"}:
+                problems.append(f"conditions.{i}.time_to_criterion_s must hold p5, p50, p95")
+        if not any("do not use it to turn accelerated-test results" in doc.get("rule_of_thumb_note", "") for _ in [0]):
+            problems.append("the rule-of-thumb sentence is missing")
     else:
         problems += [f"missing {k}" for k in CCC_KEYS if k not in doc]
         if set(doc.get("ccc_by_valence_mM", {})) != {"1", "2", "3"}:

@@ -249,8 +249,8 @@ TEST_CASE("unknown keys and sections are errors with a suggestion", "[sim][scena
     CHECK_THAT(error_of(minimal + "[run]\nsede = 3\n"),
                StartsWith("s.toml:9: [run] sede = 3: unknown key; did you mean 'seed'?"));
     CHECK_THAT(error_of(minimal + "[interaction]\nseed = 3\n"), Contains("seed belongs in [run]"));
-    CHECK_THAT(error_of(minimal + "[storage]\npath = \"x\"\n"),
-               StartsWith("s.toml:8: [storage]: unknown section") && Contains("known sections: particle, species"));
+    CHECK_THAT(error_of(minimal + "[shipping]\npath = \"x\"\n"),
+               StartsWith("s.toml:8: [shipping]: unknown section") && Contains("known sections: particle, species"));
     CHECK_THAT(error_of(minimal + "[calibration]\n"), StartsWith("s.toml:8: [calibration]: unknown section"));
     CHECK_THAT(error_of(minimal + "[partcle]\n"), Contains("did you mean [particle]?"));
 }
@@ -442,4 +442,217 @@ TEST_CASE("load_scenario reads a file and names it when it cannot", "[sim][scena
     std::ofstream(path) << minimal << "[run]\nseed = -1\n";
     CHECK_THROWS_WITH(brownfloc::sim::load_scenario(path), StartsWith(path + ":9: [run] seed = -1"));
     std::filesystem::remove_all(dir);
+}
+
+// --- [storage]: the conditions of a shelf-life estimate (issue 6) ---
+
+namespace {
+
+bool has_storage_default(const Scenario& s) {
+    return std::any_of(s.defaults_applied.begin(), s.defaults_applied.end(),
+                       [](const std::string& line) { return line.rfind("[storage]", 0) == 0; });
+}
+
+// Every [storage] key, none at its default; starts at line 8 of minimal + this.
+const std::string full_storage = R"([storage]
+temperatures_C = [4, 25.5, -10, 60]
+surface_hold = "charge"
+criterion = "z-average-growth"
+criterion_value = 0.2
+target_days = 365
+hydrodynamic_correction = false
+optics = "rgd"
+scattering_angle_deg = 173
+wavelength_nm = 532
+medium_refractive_index = 1.345
+fractal_dimension = 1.8
+second_salt = "MgSO4"
+samples = 2000
+band_samples = 50
+particle_density_kg_per_m3 = 1050
+)";
+
+}  // namespace
+
+TEST_CASE("without a [storage] section the storage defaults hold and nothing about storage is recorded",
+          "[sim][scenario][storage]") {
+    const Scenario s = parse(minimal);
+    CHECK_FALSE(s.storage_given);
+    CHECK(s.storage == brownfloc::sim::StorageSettings{});
+    CHECK_FALSE(has_storage_default(s));
+    const std::string text = brownfloc::sim::resolved_scenario_toml(s);
+    CHECK_THAT(text, !Contains("[storage]") && !Contains("temperatures_C"));
+}
+
+TEST_CASE("an empty [storage] section notes every default it applies", "[sim][scenario][storage]") {
+    const Scenario s = parse(minimal + "[storage]\n");
+    CHECK(s.storage_given);
+    CHECK(s.storage == brownfloc::sim::StorageSettings{});
+    // The struct's initialisers: 25, 30, 40 and 5 degC are the long-term, intermediate,
+    // accelerated and refrigerated conditions of ICH Q1A(R2) (2003), section 2.2.7.
+    CHECK(has_default(s, "[storage] temperatures_C = [25.0, 30.0, 40.0, 5.0]"));
+    CHECK(has_default(s, "[storage] surface_hold = \"potential\""));
+    CHECK(has_default(s, "[storage] criterion = \"count-drop\""));
+    CHECK(has_default(s, "[storage] target_days = 730.0"));
+    CHECK(has_default(s, "[storage] hydrodynamic_correction = true"));
+    CHECK(has_default(s, "[storage] optics = \"rayleigh\""));
+    CHECK(has_default(s, "[storage] scattering_angle_deg = 90.0"));
+    CHECK(has_default(s, "[storage] wavelength_nm = 633.0"));
+    CHECK(has_default(s, "[storage] medium_refractive_index = 1.33"));
+    CHECK(has_default(s, "[storage] fractal_dimension = 2.1"));
+    CHECK(has_default(s, "[storage] second_salt = \"CaCl2\""));
+    CHECK(has_default(s, "[storage] samples = 10000"));
+    CHECK(has_default(s, "[storage] band_samples = 1000"));
+    // Optional keys without a value of their own are not defaults.
+    CHECK_FALSE(s.storage.criterion_value);
+    CHECK_FALSE(s.storage.particle_density_kg_per_m3);
+    CHECK(std::count_if(s.defaults_applied.begin(), s.defaults_applied.end(),
+                        [](const std::string& line) { return line.rfind("[storage]", 0) == 0; }) == 13);
+}
+
+TEST_CASE("every [storage] key is read", "[sim][scenario][storage]") {
+    const Scenario s = parse(minimal + full_storage);
+    const brownfloc::sim::StorageSettings& st = s.storage;
+    CHECK(s.storage_given);
+    CHECK(st.temperatures_C == std::vector<double>{4.0, 25.5, -10.0, 60.0});  // integers read as numbers
+    CHECK(st.surface_hold == "charge");
+    CHECK(st.criterion == "z-average-growth");
+    CHECK(st.criterion_value == 0.2);
+    CHECK(st.target_days == 365.0);
+    CHECK_FALSE(st.hydrodynamic_correction);
+    CHECK(st.optics == "rgd");
+    CHECK(st.scattering_angle_deg == 173.0);
+    CHECK(st.wavelength_nm == 532.0);
+    CHECK(st.medium_refractive_index == 1.345);
+    CHECK(st.fractal_dimension == 1.8);
+    CHECK(st.second_salt == "MgSO4");
+    CHECK(st.samples == 2000);
+    CHECK(st.band_samples == 50);
+    CHECK(st.particle_density_kg_per_m3 == 1050.0);
+    CHECK_FALSE(has_storage_default(s));
+    // The inclusive ends of the ranges are accepted.
+    const Scenario ends = parse(minimal + "[storage]\ntemperatures_C = [-20, 100]\nscattering_angle_deg = 180\n"
+                                          "medium_refractive_index = 1\nfractal_dimension = 3\nsamples = 10000000\n"
+                                          "band_samples = 1000000\n");
+    CHECK(ends.storage.temperatures_C == std::vector<double>{-20.0, 100.0});
+    CHECK(ends.storage.samples == 10000000);
+}
+
+TEST_CASE("the resolved scenario writes the whole [storage] section and parses back equal",
+          "[sim][scenario][storage]") {
+    SECTION("every key given") {
+        const Scenario s = parse(minimal + full_storage);
+        CHECK(round_trip(s) == s);
+        CHECK_THAT(brownfloc::sim::resolved_scenario_toml(s),
+                   Contains("[storage]\ntemperatures_C = [4.0, 25.5, -10.0, 60.0]\n") &&
+                       Contains("criterion_value = 0.2\n") && Contains("particle_density_kg_per_m3 = 1050.0\n"));
+    }
+    SECTION("only defaults, with numbers that need 17 digits from --set") {
+        const Scenario s = parse(minimal + "[storage]\n", {"storage.temperatures_C=[0.1, 0.30000000000000004, 37]"});
+        CHECK(round_trip(s) == s);
+        const std::string text = brownfloc::sim::resolved_scenario_toml(s);
+        CHECK_THAT(text, Contains("samples = 10000\n") && Contains("second_salt = \"CaCl2\"\n") &&
+                             Contains("hydrodynamic_correction = true\n") && !Contains("criterion_value") &&
+                             !Contains("particle_density_kg_per_m3"));
+    }
+}
+
+TEST_CASE("--set changes [storage] keys and creates the section", "[sim][scenario][storage]") {
+    const Scenario s = parse(minimal, {"storage.temperatures_C=[25,40]", "storage.criterion=mean-size"});
+    CHECK(s.storage_given);
+    CHECK(s.storage.temperatures_C == std::vector<double>{25.0, 40.0});
+    CHECK(s.storage.criterion == "mean-size");
+    CHECK(has_default(s, "[storage] samples = 10000"));
+    const Scenario t = parse(minimal + full_storage, {"storage.surface_hold=potential", "storage.temperatures_C=[30]"});
+    CHECK(t.storage.surface_hold == "potential");
+    CHECK(t.storage.temperatures_C == std::vector<double>{30.0});
+    CHECK(t.storage.samples == 2000);
+    CHECK(error_of(minimal, {"storage.temperatures_C=[25,\"hot\"]"}) ==
+          "--set storage.temperatures_C=[25,\\\"hot\\\"]: [storage] temperatures_C[2] = \"hot\": "
+          "must be a number, not a string");
+    CHECK(error_of(minimal, {"storage.criterion=count"}) ==
+          "--set storage.criterion=count: [storage] criterion = \"count\": must be one of \"count-drop\", "
+          "\"mean-size\", \"aggregated-fraction\", \"z-average-growth\"");
+}
+
+TEST_CASE("[storage] temperatures_C must be 1 to 16 finite numbers within -20 to 100 degC",
+          "[sim][scenario][storage]") {
+    const auto error_with = [](const std::string& line) { return error_of(minimal + "[storage]\n" + line + "\n"); };
+    const std::string allowed = "must be an array of 1 to 16 numbers, each >= -20 and <= 100";
+    CHECK(error_with("temperatures_C = 25") == "s.toml:9: [storage] temperatures_C = 25: " + allowed + ", not an integer");
+    CHECK(error_with("temperatures_C = []") == "s.toml:9: [storage] temperatures_C = []: " + allowed + "; it holds 0");
+    std::string seventeen = "temperatures_C = [";
+    for (int i = 0; i < 17; ++i) {
+        if (i > 0) seventeen += ", ";
+        seventeen += std::to_string(i + 1);
+    }
+    CHECK_THAT(error_with(seventeen + "]"), StartsWith("s.toml:9: [storage] temperatures_C = [1, 2, 3") &&
+                                                Contains(allowed + "; it holds 17"));
+    // Elements are named by their place, counted from 1 as [[species]] and ions are.
+    CHECK(error_with("temperatures_C = [25, \"hot\"]") ==
+          "s.toml:9: [storage] temperatures_C[2] = \"hot\": must be a number, not a string");
+    CHECK(error_with("temperatures_C = [25, 40, 101]") ==
+          "s.toml:9: [storage] temperatures_C[3] = 101: must be >= -20 and <= 100");
+    CHECK(error_with("temperatures_C = [-20.5]") ==
+          "s.toml:9: [storage] temperatures_C[1] = -20.5: must be >= -20 and <= 100");
+    CHECK(error_with("temperatures_C = [25, nan]") ==
+          "s.toml:9: [storage] temperatures_C[2] = nan: must be a finite number");
+    CHECK(error_with("temperatures_C = [inf]") == "s.toml:9: [storage] temperatures_C[1] = inf: must be a finite number");
+    CHECK(error_with("temperatures_C = [[25]]") ==
+          "s.toml:9: [storage] temperatures_C[1] = [25]: must be a number, not an array");
+    // An element on a later line of a multi-line array is reported at its own line.
+    CHECK(error_of(minimal + "[storage]\ntemperatures_C = [\n  25,\n  true,\n]\n") ==
+          "s.toml:11: [storage] temperatures_C[2] = true: must be a number, not a boolean");
+}
+
+TEST_CASE("bad [storage] values name the file line key and value and what is allowed", "[sim][scenario][storage]") {
+    const auto error_with = [](const std::string& line) { return error_of(minimal + "[storage]\n" + line + "\n"); };
+    CHECK(error_with("surface_hold = \"voltage\"") ==
+          "s.toml:9: [storage] surface_hold = \"voltage\": must be one of \"potential\", \"charge\"");
+    CHECK_THAT(error_with("criterion = \"count drop\""),
+               StartsWith("s.toml:9: [storage] criterion = \"count drop\": must be one of \"count-drop\", \"mean-size\", "
+                          "\"aggregated-fraction\", \"z-average-growth\"") &&
+                   Contains("did you mean \"count-drop\"?"));
+    CHECK(error_with("criterion_value = 0") == "s.toml:9: [storage] criterion_value = 0: must be > 0");
+    CHECK(error_with("criterion_value = nan") == "s.toml:9: [storage] criterion_value = nan: must be a finite number");
+    CHECK(error_with("target_days = -1") == "s.toml:9: [storage] target_days = -1: must be > 0");
+    CHECK(error_with("target_days = inf") == "s.toml:9: [storage] target_days = inf: must be a finite number");
+    CHECK(error_with("hydrodynamic_correction = \"yes\"") ==
+          "s.toml:9: [storage] hydrodynamic_correction = \"yes\": must be true or false, not a string");
+    CHECK(error_with("optics = \"mie\"") == "s.toml:9: [storage] optics = \"mie\": must be one of \"rayleigh\", \"rgd\"");
+    CHECK(error_with("scattering_angle_deg = 0") == "s.toml:9: [storage] scattering_angle_deg = 0: must be > 0 and <= 180");
+    CHECK(error_with("scattering_angle_deg = 180.5") ==
+          "s.toml:9: [storage] scattering_angle_deg = 180.5: must be > 0 and <= 180");
+    CHECK(error_with("wavelength_nm = 100") == "s.toml:9: [storage] wavelength_nm = 100: must be > 100 and < 2000");
+    CHECK(error_with("wavelength_nm = 2000") == "s.toml:9: [storage] wavelength_nm = 2000: must be > 100 and < 2000");
+    CHECK(error_with("medium_refractive_index = 0.99") ==
+          "s.toml:9: [storage] medium_refractive_index = 0.99: must be >= 1 and < 3");
+    CHECK(error_with("medium_refractive_index = 3") ==
+          "s.toml:9: [storage] medium_refractive_index = 3: must be >= 1 and < 3");
+    CHECK(error_with("fractal_dimension = 1") == "s.toml:9: [storage] fractal_dimension = 1: must be > 1 and <= 3");
+    CHECK(error_with("fractal_dimension = 3.5") == "s.toml:9: [storage] fractal_dimension = 3.5: must be > 1 and <= 3");
+    CHECK_THAT(error_with("second_salt = \"NaX\""), StartsWith("s.toml:9: [storage] second_salt = \"NaX\": ") && Contains("NaX"));
+    CHECK(error_with("second_salt = 2") ==
+          "s.toml:9: [storage] second_salt = 2: must be a salt formula such as \"NaCl\", not an integer");
+    CHECK(error_with("samples = 0") == "s.toml:9: [storage] samples = 0: must be an integer >= 1 and <= 10000000");
+    CHECK(error_with("samples = 10000001") ==
+          "s.toml:9: [storage] samples = 10000001: must be an integer >= 1 and <= 10000000");
+    CHECK(error_with("samples = 1e4") == "s.toml:9: [storage] samples = 10000.0: must be an integer, not a float");
+    CHECK(error_with("band_samples = 0") == "s.toml:9: [storage] band_samples = 0: must be an integer >= 1 and <= 1000000");
+    CHECK(error_with("band_samples = 1000001") ==
+          "s.toml:9: [storage] band_samples = 1000001: must be an integer >= 1 and <= 1000000");
+    CHECK(error_with("particle_density_kg_per_m3 = 0") ==
+          "s.toml:9: [storage] particle_density_kg_per_m3 = 0: must be > 0 and < 25000");
+    CHECK(error_with("particle_density_kg_per_m3 = 25000") ==
+          "s.toml:9: [storage] particle_density_kg_per_m3 = 25000: must be > 0 and < 25000");
+}
+
+TEST_CASE("unknown keys in [storage] are errors with a suggestion", "[sim][scenario][storage]") {
+    CHECK_THAT(error_of(minimal + "[storage]\ntemperature_C = [25]\n"),
+               StartsWith("s.toml:9: [storage] temperature_C = [25]: unknown key") &&
+                   Contains("did you mean 'temperatures_C'? (temperature_C belongs in [medium])") &&
+                   Contains("known keys: temperatures_C, surface_hold"));
+    CHECK_THAT(error_of(minimal + "[storage]\nsample = 10\n"), Contains("did you mean 'samples'?"));
+    CHECK_THAT(error_of(minimal, {"storage.path=runs"}),
+               StartsWith("--set storage.path=runs: [storage] path: unknown key"));
 }

@@ -9,6 +9,7 @@
 #include "sim/scenario.hpp"
 #include "sim/scenario_physics.hpp"
 #include "sim/storage_conditions.hpp"
+#include "latex_paint.hpp"
 
 using namespace brownfloc::sim;
 using Catch::Matchers::Contains;
@@ -17,20 +18,10 @@ using Catch::Matchers::WithinRel;
 
 namespace {
 
-// An invented latex paint with hard-water calcium (demo-style inputs, not a measured system).
-const char* paint = R"(
-[particle]
-radius_nm = 80
-hamaker_J = 1.0e-20
-surface_potential_mV = -45
-
-[suspension]
-volume_fraction = 0.2
-
-[electrolyte]
-ions = [ { valence = 2, concentration_mM = 2 }, { valence = 1, concentration_mM = 5 },
-         { valence = -1, concentration_mM = 9 } ]
-)";
+// With hard-water calcium.
+const std::string paint = brownfloc::test::latex_paint_toml(
+    "-45", "ions = [ { valence = 2, concentration_mM = 2 }, { valence = 1, concentration_mM = 5 },\n"
+           "         { valence = -1, concentration_mM = 9 } ]\n");
 
 constexpr double celsius = 273.15;
 
@@ -98,7 +89,7 @@ TEST_CASE("fixed medium overrides with several temperatures and a missing suspen
     s = parse_scenario(paint, "paint.toml", {"medium.relative_permittivity=70"});
     CHECK_THROWS_WITH(storage_conditions(s, {298.15, 313.15}, SurfaceHold::potential, true),
                       Contains("relative_permittivity"));
-    const std::string no_suspension = std::string(paint).replace(std::string(paint).find("[suspension]"), 36, "");
+    const std::string no_suspension = std::string(paint).replace(paint.find("[suspension]"), 36, "");
     s = parse_scenario(no_suspension, "paint.toml");
     CHECK_THROWS_WITH(storage_conditions(s, {298.15}, SurfaceHold::potential, true), Contains("[suspension]"));
 }

@@ -61,6 +61,26 @@ struct OutputSettings {  // [output]: used by `brownfloc run` (later issues)
     friend bool operator==(const OutputSettings&, const OutputSettings&) = default;
 };
 
+struct StorageSettings {  // [storage]: used by `brownfloc shelf-life`; validated here
+    std::vector<double> temperatures_C{25.0, 30.0, 40.0, 5.0};  // long-term, intermediate, accelerated, refrigerated
+    std::string surface_hold = "potential";      // | "charge" (held fixed across temperatures, via Grahame)
+    std::string criterion = "count-drop";        // | "mean-size" | "aggregated-fraction" | "z-average-growth"
+    std::optional<double> criterion_value;       // default per criterion (count-drop 0.1, ...)
+    double target_days = 730.0;                  // > 0: the shelf life asked about
+    bool hydrodynamic_correction = true;         // W with the Honig drainage factor
+    std::string optics = "rayleigh";             // | "rgd" (z-average-growth only)
+    double scattering_angle_deg = 90.0;          // (0, 180]
+    double wavelength_nm = 633.0;                // > 0 (in vacuum)
+    double medium_refractive_index = 1.33;       // >= 1
+    double fractal_dimension = 2.1;              // (1, 3]: clusters beyond triplets
+    std::string second_salt = "CaCl2";           // salt formula added on top for the second margin
+    std::int64_t samples = 10000;                // Monte Carlo samples (>= 1)
+    std::int64_t band_samples = 1000;            // samples per point of the margins and the plot band
+    std::optional<double> particle_density_kg_per_m3;  // for the Stokes settling distance
+
+    friend bool operator==(const StorageSettings&, const StorageSettings&) = default;
+};
+
 struct Scenario {
     std::string source;  // file path as given (or "<text>")
 
@@ -91,6 +111,8 @@ struct Scenario {
 
     RunSettings run;
     OutputSettings output;
+    StorageSettings storage;
+    bool storage_given = false;  // the input has a [storage] section (else the defaults above hold)
 
     // "key = value" for each default that was applied, e.g. "[interaction] min_gap_nm = 0.2".
     std::vector<std::string> defaults_applied;

@@ -46,6 +46,14 @@ struct StorageCondition {
                                                                const std::vector<double>& temperatures_K,
                                                                SurfaceHold hold, bool hydrodynamic_correction);
 
+// The same for a changed electrolyte (salt added for a margin) while the surface charge, when
+// held, stays the one `charge_reference` has at its own temperature and electrolyte: added
+// salt lowers the potential of a surface whose charge is fixed.
+[[nodiscard]] std::vector<StorageCondition> storage_conditions(const Scenario& scenario,
+                                                               const std::vector<double>& temperatures_K,
+                                                               SurfaceHold hold, bool hydrodynamic_correction,
+                                                               const Scenario& charge_reference);
+
 // The sentence that goes with rule_of_thumb_factor wherever it is shown.
 [[nodiscard]] const char* rule_of_thumb_caution();
 
