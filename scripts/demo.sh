@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # The demo: DLVO interaction and stability of a latex in salt, the CCC of a pigment
-# dispersion against hard-water calcium, and a short aggregation run of a silica sol after
+# dispersion against hard-water calcium, a shelf-life estimate for a latex paint made up with
+# hard water, and a short aggregation run of a silica sol after
 # a salt shock (under a minute on two cores), and a picture of its last frame. Run from the
 # project root after building.
 set -euo pipefail
@@ -8,6 +9,8 @@ bin=build/bin/brownfloc
 "$bin" dlvo scenarios/001-latex-in-salt.toml --curve build/latex-curve.csv
 echo
 "$bin" ccc scenarios/002-pigment-coating.toml
+echo
+"$bin" shelf-life scenarios/006-latex-paint-shelf-life.toml
 echo
 "$bin" run scenarios/005-silica-sol-salt-shock.toml -o build/demo-run --overwrite
 echo

@@ -557,7 +557,7 @@ TEST_CASE("the resolved scenario writes the whole [storage] section and parses b
     }
 }
 
-TEST_CASE("--set changes [storage] keys and creates the section", "[sim][scenario][storage]") {
+TEST_CASE("a --set changes [storage] keys and creates the section", "[sim][scenario][storage]") {
     const Scenario s = parse(minimal, {"storage.temperatures_C=[25,40]", "storage.criterion=mean-size"});
     CHECK(s.storage_given);
     CHECK(s.storage.temperatures_C == std::vector<double>{25.0, 40.0});

@@ -53,7 +53,7 @@ int render_status(const ViewOptions& options, std::string& messages) {
 
 }  // namespace
 
-TEST_CASE("--wait returns frame K while a writer is still appending it", "[viewer][live]") {
+TEST_CASE("with --wait a render returns frame K while a writer is still appending it", "[viewer][live]") {
     const test::TempDir dir("bfview");
     std::filesystem::create_directories(dir / "run");
     // Frame k holds one sphere at x = c - 200 + 100 k: where it lands tells which frame was drawn.
@@ -88,7 +88,7 @@ TEST_CASE("--wait returns frame K while a writer is still appending it", "[viewe
     CHECK(std::abs(blob.centre_x_px - p.x_px) <= 1.0);
 }
 
-TEST_CASE("--wait gives up after its time with a clear error when the frame never comes", "[viewer][live]") {
+TEST_CASE("with --wait a render gives up after its time with a clear error when the frame never comes", "[viewer][live]") {
     const test::TempDir dir("bfview");
     test::write_hand_run(dir / "run", {{PlacedSphere{c, c, c, 30.0, 0, 0}}});
     ViewOptions options = options_for(dir / "run", dir / "never.png");
