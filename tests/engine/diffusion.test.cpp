@@ -94,7 +94,7 @@ TEST_CASE("free spheres diffuse with the Stokes-Einstein coefficient: MSD = 6 D 
 }
 
 TEST_CASE("rigid doublets turn with the Kirkwood rotational diffusion: <u(0).u(t)> = exp(-2 D_r t)",
-          "[engine][validation]") {
+          "[engine][validation][slow]") {
     // Debye rotational diffusion of a unit vector fixed in a body: <u(0).u(t)> = exp(-2 D_r t)
     // (Debye 1929, Polar Molecules, ch. V; Berne & Pecora 1976, Dynamic Light Scattering,
     // ch. 7 [memory for the chapters]). The engine treats a cluster as a sphere of the Kirkwood

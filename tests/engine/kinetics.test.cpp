@@ -247,7 +247,7 @@ TEST_CASE("a double-layer barrier slows capture by its Fuchs stability ratio, an
 }
 
 TEST_CASE("oppositely charged spheres heteroaggregate at the Fuchs rate of the attracting pair",
-          "[engine][validation]") {
+          "[engine][validation][slow]") {
     // Case: two species of a = 20 nm, psi = +25 and -25 mV, no van der Waals (A = 0), number
     // fractions 0.5, 0.25 mM NaCl (kappa a = 1.04). Like pairs: repulsion of 12.5 kT at
     // min_gap (W ~ 7e3, no captures); unlike pairs: attraction, capture where U = -10 kT

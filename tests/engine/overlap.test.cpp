@@ -85,7 +85,7 @@ seed = 4
 }
 
 TEST_CASE("no two particles overlap by more than 1 % of the radius while small attracting spheres form clusters",
-          "[engine][validation]") {
+          "[engine][validation][slow]") {
     // The same surfaces at a = 10 nm (kappa a = 7.4, still no barrier): the run reaches a
     // fast half-life in a test's time, so clusters meet clusters under forces and torques.
     // Volume fraction 0.05, 1000 particles, seed 8.

@@ -210,7 +210,7 @@ Convergence measure(const EngineModel& model, double b_gap_m, double q_gap_m, st
 }  // namespace
 
 TEST_CASE("the capture rate at the automatic time step is within 5 % of its dt -> 0 limit on shared Brownian paths",
-          "[engine][validation]") {
+          "[engine][validation][slow]") {
     SECTION("through a double-layer barrier (kappa a = 1.04, barrier 3.3 kT, W = 5.1)") {
         const RunPlan plan = brownfloc::engine_test::plan_from_toml(brownfloc::engine_test::barrier_case_toml(0.002, 2, 1));
         const EngineModel& model = *plan.model;
