@@ -70,17 +70,21 @@ Scenario with_added_salt(const Scenario& s, const std::string& formula, double a
     return out;
 }
 
-// Time to the criterion [s] for a scenario at one temperature; +inf when it overflows.
-double time_at(const Scenario& s, double temperature_K, const ShelfLifeReport& r, const Scenario& reference) {
-    const std::vector<StorageCondition> c =
-        storage_conditions(s, {temperature_K}, r.hold, reference.storage.hydrodynamic_correction, reference);
-    const double log10_tau = c.front().log10_tau_s;
+// Time to the criterion [s] from log10 tau; +inf when it overflows.
+double time_from_log10_tau(double log10_tau, const ShelfLifeReport& r) {
     if (log10_tau > 300) return INFINITY;
     try {
         return shelf::time_to_criterion_s(r.criterion, std::pow(10.0, log10_tau), r.primary_radius_m);
     } catch (const std::range_error&) {
         return INFINITY;
     }
+}
+
+// Time to the criterion [s] for a scenario at one temperature; +inf when it overflows.
+double time_at(const Scenario& s, double temperature_K, const ShelfLifeReport& r, const Scenario& reference) {
+    const std::vector<StorageCondition> c =
+        storage_conditions(s, {temperature_K}, r.hold, reference.storage.hydrodynamic_correction, reference);
+    return time_from_log10_tau(c.front().log10_tau_s, r);
 }
 
 // The added salt at which the time to the criterion falls to the target (bisection; the
@@ -159,7 +163,7 @@ ShelfLifeReport compute_shelf_life(const Scenario& s) {
     for (const StorageCondition& c : conditions) {
         ConditionEstimate e;
         e.condition = c;
-        const double t = c.log10_tau_s > 300 ? INFINITY : time_at(s, c.temperature_K, r, s);
+        const double t = time_from_log10_tau(c.log10_tau_s, r);  // tau of this condition, computed above
         e.beyond_range = !(t <= shelf_life_time_limit_s);
         e.time_to_criterion_s = e.beyond_range ? shelf_life_time_limit_s : t;
         e.time_over_target = e.time_to_criterion_s / r.target_s;

@@ -21,17 +21,11 @@ namespace brownfloc::viewer {
 namespace {
 
 LoadedFrame load_now(const LiveTrajectory& trajectory, std::size_t k, std::uint64_t seed) {
-    LoadedFrame loaded;
-    loaded.index = k;
-    loaded.info = trajectory.frame_info(k);
     try {
-        auto frame = std::make_shared<const trajectory::TrajectoryFrame>(trajectory.read_frame(k));
-        loaded.analysis = std::make_shared<const FrameAnalysis>(analyse_frame(trajectory.header(), *frame, seed));
-        loaded.frame = std::move(frame);
+        return load_frame_now(trajectory, k, seed);
     } catch (const std::exception& error) {
         throw ViewerInputError(io::message("frame ", k, " cannot be read: ", error.what()));
     }
-    return loaded;
 }
 
 ViewSettings settings_from(const ViewOptions& options, const FrameAnalysis& analysis) {

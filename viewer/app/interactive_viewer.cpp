@@ -350,11 +350,7 @@ void Window::step_export() {
     if (!job.saver->has_room()) return;
     LoadedFrame frame;
     try {
-        frame.index = job.next;
-        frame.info = trajectory_->frame_info(job.next);
-        auto data = std::make_shared<const trajectory::TrajectoryFrame>(trajectory_->read_frame(job.next));
-        frame.analysis = std::make_shared<const FrameAnalysis>(analyse_frame(trajectory_->header(), *data, seed_));
-        frame.frame = std::move(data);
+        frame = load_frame_now(*trajectory_, job.next, seed_);
     } catch (const std::exception& error) {
         note(io::message("frame ", job.next, " skipped in the export: ", error.what()));
         ++job.next;

@@ -1,5 +1,6 @@
 #include "run_view_data.hpp"
 
+#include "data/frame_analysis.hpp"
 #include "data/run_location.hpp"
 #include "io/io_error.hpp"
 #include "io/message_text.hpp"
@@ -43,6 +44,16 @@ CountSeries load_count_series(const LiveTrajectory& trajectory) {
         }
     }
     return collector.series(trajectory.header().fast_half_life_s, n);
+}
+
+LoadedFrame load_frame_now(const LiveTrajectory& trajectory, std::size_t k, std::uint64_t seed) {
+    LoadedFrame loaded;
+    loaded.index = k;
+    loaded.info = trajectory.frame_info(k);
+    auto frame = std::make_shared<const trajectory::TrajectoryFrame>(trajectory.read_frame(k));
+    loaded.analysis = std::make_shared<const FrameAnalysis>(analyse_frame(trajectory.header(), *frame, seed));
+    loaded.frame = std::move(frame);
+    return loaded;
 }
 
 std::vector<std::string> trajectory_notes(const LiveTrajectory& trajectory) {

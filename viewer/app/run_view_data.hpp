@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "data/count_series.hpp"
+#include "data/frame_loader.hpp"
 #include "data/live_trajectory.hpp"
 
 namespace brownfloc::viewer {
@@ -19,6 +20,10 @@ namespace brownfloc::viewer {
 // The clusters/N0 series: from timeseries.csv when the run has one, else from every frame's
 // cluster count (read one frame at a time).
 [[nodiscard]] CountSeries load_count_series(const LiveTrajectory& trajectory);
+
+// Reads frame k and analyses it now, on the calling thread (for --render and exports; the
+// window's browsing goes through FrameLoader). Throws what reading or analysis throws.
+[[nodiscard]] LoadedFrame load_frame_now(const LiveTrajectory& trajectory, std::size_t k, std::uint64_t seed);
 
 // Notes on the state of the file, for the warning lines of the scene.
 [[nodiscard]] std::vector<std::string> trajectory_notes(const LiveTrajectory& trajectory);
