@@ -17,6 +17,12 @@ double water_viscosity_Pa_s(double temperature_K) {
     return eta_uPa_s * 1e-6;
 }
 
+double water_density_kg_per_m3(double temperature_K) {
+    const double t = temperature_K - constants::zero_celsius_K;
+    const double a1 = -3.983035, a2 = 301.797, a3 = 522528.9, a4 = 69.34881, a5 = 999.974950;
+    return a5 * (1 - (t + a1) * (t + a1) * (t + a2) / (a3 * (t + a4)));
+}
+
 double water_relative_permittivity(double temperature_K) {
     // Malmberg & Maryott (1956), J. Res. NBS 56, 1 (t in degC, 0-100 degC).
     const double t = temperature_K - constants::zero_celsius_K;

@@ -33,6 +33,11 @@ struct RunCommandOptions {
     bool force = false;      // --force (with --resume)
 };
 
+struct ShelfLifeCommandOptions {
+    CommonOptions common;
+    std::string plot_path;  // empty: no plot
+};
+
 struct ExportOptions {
     std::string run_dir;
     std::string frame = "last";  // "last" or a frame number
@@ -45,6 +50,6 @@ int run_dlvo(const DlvoOptions& options);
 int run_ccc(const CommonOptions& options);
 int run_run(const RunCommandOptions& options);
 int run_export(const ExportOptions& options);
-int run_shelf_life(const CommonOptions& options);
+int run_shelf_life(const ShelfLifeCommandOptions& options);
 
 }  // namespace brownfloc::app

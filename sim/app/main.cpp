@@ -98,12 +98,16 @@ int main(int argc, char** argv) {
                                "Write to this file (replaced atomically) instead of standard output")
         ->type_name("FILE");
 
-    CommonOptions shelf_life;
+    ShelfLifeCommandOptions shelf_life;
     CLI::App* shelf_life_command = app.add_subcommand(
         "shelf-life", "Time to an aggregation criterion at storage temperatures ([storage]; defaults 25, 30, 40, "
                       "5 degC), its acceleration with temperature, and the added salt the dispersion tolerates "
                       "before that time falls to the target; a model estimate, not a stability test");
-    add_common(*shelf_life_command, shelf_life);
+    add_common(*shelf_life_command, shelf_life.common);
+    shelf_life_command->add_option("--plot", shelf_life.plot_path,
+                                   "Also write an SVG of the time to the criterion against the varied salt at the "
+                                   "first temperature (log-log), with the p5-p95 Monte Carlo band, the present salt, "
+                                   "the CCC and the target marked");
 
     try {
         app.parse(argc, argv);

@@ -83,6 +83,7 @@ CccReport compute_ccc_report(const Scenario& scenario) {
                                       "ionic strengths");
         if (p.ccc_at_min_gap) report.warnings.push_back(p.ccc_note);
     }
+    if (auto medians = medians_used_warning(scenario)) report.warnings.push_back(std::move(*medians));
     return report;
 }
 

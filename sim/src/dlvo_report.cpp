@@ -172,6 +172,7 @@ DlvoReport compute_dlvo_report(const Scenario& scenario) {
             for (const std::string& w : report.pairs.back().warnings)
                 report.warnings.push_back(pair_label(scenario, report.pairs.back()) + w);
         }
+    if (auto medians = medians_used_warning(scenario)) report.warnings.push_back(std::move(*medians));
     return report;
 }
 

@@ -57,6 +57,11 @@ std::string format_g(double v) {
 
 RunPlan plan_run(const Scenario& s, std::uint64_t seed, StopRequested stop_requested) {
     RunPlan plan;
+    if (!s.uncertain_inputs.empty())
+        throw InputError(s.source + ": " + s.uncertain_inputs.front().key + " = " +
+                         s.uncertain_inputs.front().distribution.text() +
+                         ": a run simulates one dispersion: give a single value (distributions are for "
+                         "`brownfloc shelf-life`; `dlvo` and `ccc` take their medians)");
     const auto density = number_density_per_m3(s);
     if (!density)
         throw InputError(s.source + ": [suspension]: a run needs volume_fraction or number_density_per_m3");
@@ -129,9 +134,9 @@ RunPlan plan_run(const Scenario& s, std::uint64_t seed, StopRequested stop_reque
 
     // Box from the radii actually drawn.
     double volume_m3 = 0;
-    if (s.volume_fraction) {
+    if (const std::optional<double> phi = volume_fraction_of(s)) {
         for (double a : radii) volume_m3 += 4.0 / 3.0 * constants::pi * a * a * a;
-        volume_m3 /= *s.volume_fraction;
+        volume_m3 /= *phi;
     } else {
         volume_m3 = double(n) / *s.number_density_per_m3;
     }

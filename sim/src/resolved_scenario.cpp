@@ -55,38 +55,53 @@ private:
     std::string out_;
 };
 
+// A value that may be a distribution: its text as written ("{ median = 50, factor = 1.1 }")
+// when the scenario holds one for the slot, else the number.
+void value(TomlWriter& w, const Scenario& s, const char* key, InputSlot slot, int species, double number) {
+    for (const UncertainInput& u : s.uncertain_inputs)
+        if (u.slot == slot && u.species == species) return w.line(key, u.distribution.text());
+    w.number(key, number);
+}
+void value(TomlWriter& w, const Scenario& s, const char* key, InputSlot slot, const std::optional<double>& number) {
+    if (number) value(w, s, key, slot, 0, *number);
+}
+
 void write_species(TomlWriter& w, const Scenario& s) {
     // [particle] is the one-species shorthand; keep the form the user wrote.
     const bool shorthand = s.from_particle_table && s.species.size() == 1;
-    for (const SpeciesSpec& sp : s.species) {
+    for (std::size_t i = 0; i < s.species.size(); ++i) {
+        const SpeciesSpec& sp = s.species[i];
+        const int index = static_cast<int>(i);
         w.section(shorthand ? "[particle]" : "[[species]]");
         w.text("name", sp.name);
-        w.number("radius_nm", sp.radius_nm);
-        w.number("hamaker_J", sp.hamaker_J);
-        w.number("surface_potential_mV", sp.surface_potential_mV);
+        value(w, s, "radius_nm", InputSlot::radius_nm, index, sp.radius_nm);
+        value(w, s, "hamaker_J", InputSlot::hamaker_J, index, sp.hamaker_J);
+        value(w, s, "surface_potential_mV", InputSlot::surface_potential_mV, index, sp.surface_potential_mV);
         w.number("radius_spread", sp.radius_spread);
         if (!shorthand) w.number("number_fraction", sp.number_fraction);
     }
 }
 
 void write_conditions(TomlWriter& w, const Scenario& s) {
-    if (s.volume_fraction || s.number_density_per_m3) {
+    if (s.volume_fraction || s.number_density_per_m3 || s.mass_fraction || s.particle_density_kg_per_m3) {
         w.section("[suspension]");
-        w.number("volume_fraction", s.volume_fraction);
-        w.number("number_density_per_m3", s.number_density_per_m3);
+        value(w, s, "volume_fraction", InputSlot::volume_fraction, s.volume_fraction);
+        value(w, s, "number_density_per_m3", InputSlot::number_density_per_m3, s.number_density_per_m3);
+        value(w, s, "mass_fraction", InputSlot::mass_fraction, s.mass_fraction);
+        value(w, s, "particle_density_kg_per_m3", InputSlot::particle_density_kg_per_m3, s.particle_density_kg_per_m3);
     }
     w.section("[medium]");
     w.line("temperature_K", number_text(s.temperature_K),
            detail::bound_text(s.temperature_K - detail::celsius_offset_K) + " degC");
-    w.number("viscosity_mPa_s", s.viscosity_mPa_s);
-    w.number("relative_permittivity", s.relative_permittivity);
+    value(w, s, "viscosity_mPa_s", InputSlot::viscosity_mPa_s, s.viscosity_mPa_s);
+    value(w, s, "relative_permittivity", InputSlot::relative_permittivity, s.relative_permittivity);
     if (!s.viscosity_mPa_s || !s.relative_permittivity)
         w.comment("viscosity and permittivity not given are those of water at this temperature");
 
     w.section("[electrolyte]");
     if (s.salt) {
         w.text("salt", *s.salt);
-        w.number("concentration_mM", s.salt_concentration_mM);
+        value(w, s, "concentration_mM", InputSlot::salt_concentration_mM, 0, s.salt_concentration_mM);
     } else {
         std::string ions = "[";
         for (std::size_t i = 0; i < s.ions.size(); ++i)
@@ -151,7 +166,42 @@ void write_storage(TomlWriter& w, const Scenario& s) {
     w.text("second_salt", st.second_salt);
     w.integer("samples", st.samples);
     w.integer("band_samples", st.band_samples);
-    w.number("particle_density_kg_per_m3", st.particle_density_kg_per_m3);
+}
+
+void write_calibration(TomlWriter& w, const Scenario& s) {
+    if (!s.calibration_given) return;
+    const CalibrationSettings& c = s.calibration;
+    w.section("[calibration]");
+    if (!c.points.empty()) {
+        std::string points = "[";
+        for (std::size_t i = 0; i < c.points.size(); ++i) {
+            const CalibrationPoint& p = c.points[i];
+            points += i ? ",\n  " : "\n  ";
+            const auto field = [&points](const char* name, const std::string& text) {
+                points.append(name).append(" = ").append(text);
+            };
+            points += "{ ";
+            field("concentration_mM", number_text(p.concentration_mM));
+            if (p.stability_ratio) field(", stability_ratio", number_text(*p.stability_ratio));
+            if (p.rate_constant_m3_per_s) field(", rate_constant_m3_per_s", number_text(*p.rate_constant_m3_per_s));
+            field(", relative_sd", number_text(p.relative_sd));
+            if (p.temperature_C) field(", temperature_C", number_text(*p.temperature_C));
+            if (p.salt) field(", salt", toml_string_literal(*p.salt));
+            points += " }";
+        }
+        w.line("points", points + ",\n]");
+    }
+    w.number("ccc_mM", c.ccc_mM);
+    w.number("ccc_relative_sd", c.ccc_relative_sd);
+    w.text("w_reference", c.w_reference);
+    w.text("rate_convention", c.rate_convention);
+    w.number("fast_rate_constant_m3_per_s", c.fast_rate_constant_m3_per_s);
+    std::string names = "[";
+    for (std::size_t i = 0; i < c.parameters.size(); ++i) {
+        if (i) names += ", ";
+        names += toml_string_literal(c.parameters[i]);
+    }
+    w.line("parameters", names + "]");
 }
 
 }  // namespace
@@ -164,6 +214,7 @@ std::string resolved_scenario_toml(const Scenario& scenario) {
     write_conditions(w, scenario);
     write_settings(w, scenario);
     write_storage(w, scenario);
+    write_calibration(w, scenario);
     return w.str();
 }
 

@@ -8,6 +8,7 @@
 
 #include "potentials/electrolyte.hpp"
 #include "potentials/input_error.hpp"
+#include "scenario_distribution.hpp"
 #include "scenario_text.hpp"
 
 namespace brownfloc::sim::detail {
@@ -151,6 +152,18 @@ void check_value(const std::string& source, std::string_view section, std::strin
     const auto bad = [&](const std::string& what) { fail(source, value, section, key, &value, what); };
     switch (spec.kind) {
         case ValueKind::number: {
+            if (value.is_table() && spec.uncertain) {
+                check_distribution(source, section, key, spec, *value.as_table());
+                return;
+            }
+            if (value.is_table() && key.find("ions.") == 0)
+                bad("must be a number: a distribution on one ion would break electroneutrality; put the "
+                    "uncertainty on [electrolyte] concentration_mM with salt = \"...\" instead");
+            if (value.is_table())
+                bad(std::string("must be a number, not a table (distributions ") + distribution_forms() +
+                    " are allowed on the particle keys radius_nm, hamaker_J and surface_potential_mV, on "
+                    "[suspension] keys, on [medium] viscosity_mPa_s and relative_permittivity and on "
+                    "[electrolyte] concentration_mM)");
             if (!value.is_number()) bad("must be a number, not " + type_phrase(value));
             const double v = as_double(value);
             if (!std::isfinite(v)) bad("must be a finite number");
@@ -223,6 +236,27 @@ void check_value(const std::string& source, std::string_view section, std::strin
             }
             return;
         }
+        case ValueKind::choice_list: {
+            const std::string allowed = "must be an array of distinct names out of " + choices_text(spec);
+            if (!value.is_array()) bad(allowed + ", not " + type_phrase(value));
+            const toml::array& array = *value.as_array();
+            if (array.empty()) bad(allowed + "; it is empty");
+            std::vector<std::string> seen;
+            for (const toml::node& element : array) {
+                const std::string* name = element.is_string() ? &element.as_string()->get() : nullptr;
+                if (!name || std::find(spec.choices.begin(), spec.choices.end(), *name) == spec.choices.end())
+                    bad(allowed + "; " + value_text(element) + " is not one of them");
+                if (std::find(seen.begin(), seen.end(), *name) != seen.end())
+                    bad(allowed + "; " + value_text(element) + " is given twice");
+                seen.push_back(*name);
+            }
+            return;
+        }
+        case ValueKind::point_list:
+            if (!value.is_array())
+                bad("must be an array of tables such as [{ concentration_mM = 50, stability_ratio = 120 }], not " +
+                    type_phrase(value));
+            return;
         case ValueKind::ion_list:
             if (!value.is_array())
                 bad("must be an array of tables such as [{ valence = 1, concentration_mM = 10 }, "
@@ -280,7 +314,10 @@ std::vector<std::pair<std::string_view, const toml::node*>> entries_in_source_or
 
 std::optional<double> number_at(const toml::table& table, std::string_view key) {
     const toml::node* node = table.get(key);
-    return node ? std::optional<double>(as_double(*node)) : std::nullopt;
+    if (!node) return std::nullopt;
+    // A distribution stands for its median (scenario_distribution.hpp).
+    if (node->is_table()) return distribution_at(*node).quantile(0.5);
+    return as_double(*node);
 }
 
 std::optional<std::int64_t> integer_at(const toml::table& table, std::string_view key) {

@@ -56,7 +56,8 @@ void require(const std::string& source, const toml::table& table, std::string_vi
 [[nodiscard]] std::vector<std::pair<std::string_view, const toml::node*>> entries_in_source_order(
     const std::string& source, const toml::table& table);
 
-// Typed reads of values that check_table has already accepted.
+// Typed reads of values that check_table has already accepted. number_at gives the median of
+// a distribution.
 [[nodiscard]] std::optional<double> number_at(const toml::table& table, std::string_view key);
 [[nodiscard]] std::optional<std::int64_t> integer_at(const toml::table& table, std::string_view key);
 [[nodiscard]] std::optional<bool> boolean_at(const toml::table& table, std::string_view key);

@@ -4,6 +4,7 @@
 #include "potentials/input_error.hpp"
 #include "potentials/water.hpp"
 #include "scenario_check.hpp"
+#include "scenario_distribution.hpp"
 #include "scenario_sections.hpp"
 #include "scenario_text.hpp"
 
@@ -15,11 +16,20 @@ const toml::table* section_table(const toml::table& root, std::string_view name)
     return node ? node->as_table() : nullptr;
 }
 
-void read_suspension(const toml::table& root, Scenario& scenario) {
+void read_suspension(const std::string& source, const toml::table& root, Scenario& scenario) {
     const toml::table* table = section_table(root, "suspension");
     if (!table) return;  // optional: without it half-lives are not computed
     scenario.volume_fraction = number_at(*table, "volume_fraction");
     scenario.number_density_per_m3 = number_at(*table, "number_density_per_m3");
+    scenario.mass_fraction = number_at(*table, "mass_fraction");
+    scenario.particle_density_kg_per_m3 = number_at(*table, "particle_density_kg_per_m3");
+    if (scenario.mass_fraction) require(source, *table, "suspension", "particle_density_kg_per_m3", "with mass_fraction");
+    note_uncertain(scenario, *table, "volume_fraction", InputSlot::volume_fraction, 0, "[suspension] volume_fraction");
+    note_uncertain(scenario, *table, "number_density_per_m3", InputSlot::number_density_per_m3, 0,
+                   "[suspension] number_density_per_m3");
+    note_uncertain(scenario, *table, "mass_fraction", InputSlot::mass_fraction, 0, "[suspension] mass_fraction");
+    note_uncertain(scenario, *table, "particle_density_kg_per_m3", InputSlot::particle_density_kg_per_m3, 0,
+                   "[suspension] particle_density_kg_per_m3");
 }
 
 void read_medium(const std::string& source, const toml::table& root, Scenario& scenario) {
@@ -38,6 +48,9 @@ void read_medium(const std::string& source, const toml::table& root, Scenario& s
     }
     scenario.viscosity_mPa_s = number_at(table, "viscosity_mPa_s");
     scenario.relative_permittivity = number_at(table, "relative_permittivity");
+    note_uncertain(scenario, table, "viscosity_mPa_s", InputSlot::viscosity_mPa_s, 0, "[medium] viscosity_mPa_s");
+    note_uncertain(scenario, table, "relative_permittivity", InputSlot::relative_permittivity, 0,
+                   "[medium] relative_permittivity");
     if (scenario.viscosity_mPa_s && scenario.relative_permittivity) return;  // any T > 0 K then
 
     // Compared in the unit the user wrote, so that 0 degC and 100 degC are inside exactly.
@@ -103,6 +116,8 @@ void read_electrolyte(const std::string& source, const toml::table& root, Scenar
         require(source, *table, "electrolyte", "concentration_mM", "with salt");
         scenario.salt = string_at(*table, "salt");
         scenario.salt_concentration_mM = *number_at(*table, "concentration_mM");
+        note_uncertain(scenario, *table, "concentration_mM", InputSlot::salt_concentration_mM, 0,
+                       "[electrolyte] concentration_mM");
         if (scenario.salt_concentration_mM == 0.0) zero_ionic_strength(source, *concentration, "concentration_mM");
     } else {
         read_ions(source, *ions->as_array(), scenario);
@@ -113,7 +128,7 @@ void read_electrolyte(const std::string& source, const toml::table& root, Scenar
 }  // namespace
 
 void read_conditions(const std::string& source, const toml::table& root, Scenario& scenario) {
-    read_suspension(root, scenario);
+    read_suspension(source, root, scenario);
     read_medium(source, root, scenario);
     read_electrolyte(source, root, scenario);
 }

@@ -1,6 +1,7 @@
 #include "sim/scenario_physics.hpp"
 
 #include <cmath>
+#include <cstdio>
 
 #include "potentials/constants.hpp"
 #include "potentials/input_error.hpp"
@@ -76,13 +77,41 @@ double mean_cubed_radius_m3(const SpeciesSpec& species) {
     return a * a * a * std::exp(4.5 * sigma * sigma) * truncated;
 }
 
+std::optional<double> volume_fraction_of(const Scenario& scenario) {
+    if (scenario.volume_fraction) return scenario.volume_fraction;
+    if (!scenario.mass_fraction || !scenario.particle_density_kg_per_m3) return std::nullopt;
+    const double w = *scenario.mass_fraction;
+    const double particle_m3_per_kg = w / *scenario.particle_density_kg_per_m3;
+    const double medium_m3_per_kg = (1 - w) / potentials::water_density_kg_per_m3(scenario.temperature_K);
+    return particle_m3_per_kg / (particle_m3_per_kg + medium_m3_per_kg);
+}
+
 std::optional<double> number_density_per_m3(const Scenario& scenario) {
     if (scenario.number_density_per_m3) return scenario.number_density_per_m3;
-    if (!scenario.volume_fraction) return std::nullopt;
+    const std::optional<double> phi = volume_fraction_of(scenario);
+    if (!phi) return std::nullopt;
     double mean_volume_m3 = 0.0;
     for (const SpeciesSpec& s : scenario.species)
         mean_volume_m3 += s.number_fraction * 4.0 / 3.0 * constants::pi * mean_cubed_radius_m3(s);
-    return *scenario.volume_fraction / mean_volume_m3;
+    return *phi / mean_volume_m3;
+}
+
+std::optional<std::string> medians_used_warning(const Scenario& scenario) {
+    if (scenario.uncertain_inputs.empty()) return std::nullopt;
+    std::string text = "values given as distributions are taken at their medians here (";
+    for (std::size_t i = 0; i < scenario.uncertain_inputs.size(); ++i) {
+        const UncertainInput& u = scenario.uncertain_inputs[i];
+        if (i) text += "; ";
+        text += u.key;
+        text += " = ";
+        text += u.distribution.text();
+        text += ": ";
+        char median[32];
+        std::snprintf(median, sizeof median, "%.6g", u.distribution.quantile(0.5));
+        text += median;
+    }
+    text += "); `brownfloc shelf-life` carries their uncertainty through";
+    return text;
 }
 
 }  // namespace brownfloc::sim

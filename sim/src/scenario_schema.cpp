@@ -10,6 +10,10 @@ constexpr Bound ge(double v) { return {v, true}; }
 constexpr Bound lt(double v) { return {v, false}; }
 constexpr Bound le(double v) { return {v, true}; }
 
+// 5 M is beyond the solubility of most salts and far beyond where DLVO screening means
+// anything; larger values are taken for a unit slip (M or uM typed as mM).
+constexpr double max_concentration_mM = 5000.0;
+
 KeySpec number(std::string_view key, std::optional<Bound> min = {}, std::optional<Bound> max = {}) {
     return KeySpec{key, ValueKind::number, min, max, false, {}, 0, 0};
 }
@@ -24,6 +28,12 @@ KeySpec choice(std::string_view key, std::vector<std::string_view> choices) {
 KeySpec number_list(std::string_view key, std::size_t min_items, std::size_t max_items, std::optional<Bound> min,
                     std::optional<Bound> max) {
     return KeySpec{key, ValueKind::number_list, min, max, false, {}, min_items, max_items};
+}
+
+// The same key, accepting a distribution in place of the number (scenario_schema.hpp).
+KeySpec uncertain(KeySpec spec) {
+    spec.uncertain = true;
+    return spec;
 }
 
 // [storage]: the conditions of a shelf-life estimate (`brownfloc shelf-life`). Ranges here
@@ -51,9 +61,21 @@ SectionSpec storage_section() {
              number("fractal_dimension", gt(1), le(3)),
              of_kind("second_salt", ValueKind::salt_formula),
              integer("samples", ge(1), le(1e7)),
-             integer("band_samples", ge(1), le(1e6)),
-             // 25000 kg/m3: above the densest element (osmium, 22590 kg/m3); larger is a slip.
-             number("particle_density_kg_per_m3", gt(0), lt(25000))},
+             integer("band_samples", ge(1), le(1e6))},
+            {},
+            {}};
+}
+
+// [calibration]: measurements the shelf-life model is fitted to (sim/include/sim/calibration.hpp).
+SectionSpec calibration_section() {
+    KeySpec parameters{"parameters", ValueKind::choice_list, {}, {}, false, {"surface_potential_mV", "hamaker_J"}, 0, 0};
+    return {"calibration",
+            false,
+            {of_kind("points", ValueKind::point_list), number("ccc_mM", gt(0), le(max_concentration_mM)),
+             number("ccc_relative_sd", gt(0), le(5)), choice("w_reference", {"measured-fast", "smoluchowski"}),
+             choice("rate_convention", {"k", "half-k"}),
+             // 1e-15 m3/s is some 1e2 times any diffusion-limited rate in water; larger is a slip.
+             number("fast_rate_constant_m3_per_s", gt(0), lt(1e-15)), parameters},
             {},
             {}};
 }
@@ -65,9 +87,9 @@ SectionSpec storage_section() {
 std::vector<KeySpec> particle_keys(bool with_number_fraction) {
     std::vector<KeySpec> keys{
         of_kind("name", ValueKind::text),
-        number("radius_nm", gt(0), lt(1e5)),
-        number("hamaker_J", ge(0), lt(1e-17)),
-        number("surface_potential_mV", ge(-500), le(500)),
+        uncertain(number("radius_nm", gt(0), lt(1e5))),
+        uncertain(number("hamaker_J", ge(0), lt(1e-17))),
+        uncertain(number("surface_potential_mV", ge(-500), le(500))),
         // Standard deviation of ln(radius); >= 1 would span decades of sizes.
         number("radius_spread", ge(0), lt(1)),
     };
@@ -75,27 +97,28 @@ std::vector<KeySpec> particle_keys(bool with_number_fraction) {
     return keys;
 }
 
-// 5 M is beyond the solubility of most salts and far beyond where DLVO screening means
-// anything; larger values are taken for a unit slip (M or uM typed as mM).
-constexpr double max_concentration_mM = 5000.0;
 
 std::vector<SectionSpec> build_sections() {
     std::vector<SectionSpec> sections;
     sections.push_back({"particle", false, particle_keys(false), {}, {}});
     sections.push_back({"species", true, particle_keys(true), {}, {}});
     // 0.64: random close packing of equal spheres, 0.637 (Scott & Kilgour 1969, J. Phys. D 2, 863).
+    // 25000 kg/m3: above the densest element (osmium, 22590 kg/m3); larger is a slip.
     sections.push_back({"suspension", false,
-                        {number("volume_fraction", gt(0), lt(0.64)), number("number_density_per_m3", gt(0))},
-                        {{"volume_fraction", "number_density_per_m3"}}, {}});
+                        {uncertain(number("volume_fraction", gt(0), lt(0.64))),
+                         uncertain(number("number_density_per_m3", gt(0))),
+                         uncertain(number("mass_fraction", gt(0), lt(1))),
+                         uncertain(number("particle_density_kg_per_m3", gt(0), lt(25000)))},
+                        {{"volume_fraction", "number_density_per_m3", "mass_fraction"}}, {}});
     // Absolute zero bounds the temperatures here; the liquid-water range is checked later,
     // because it depends on whether viscosity and permittivity are given.
     sections.push_back({"medium", false,
                         {number("temperature_C", gt(-celsius_offset_K)), number("temperature_K", gt(0)),
-                         number("viscosity_mPa_s", gt(0)), number("relative_permittivity", ge(1))},
+                         uncertain(number("viscosity_mPa_s", gt(0))), uncertain(number("relative_permittivity", ge(1)))},
                         {{"temperature_C", "temperature_K"}}, {}});
     sections.push_back({"electrolyte", false,
                         {of_kind("salt", ValueKind::salt_formula),
-                         number("concentration_mM", ge(0), le(max_concentration_mM)),
+                         uncertain(number("concentration_mM", ge(0), le(max_concentration_mM))),
                          of_kind("ions", ValueKind::ion_list), of_kind("titrant", ValueKind::salt_formula)},
                         {{"salt", "ions"}},
                         {{"salt", "concentration_mM"}}});
@@ -121,6 +144,7 @@ std::vector<SectionSpec> build_sections() {
                          number("checkpoint_interval_wall_s", gt(0))},
                         {{"snapshot_interval_s", "snapshots"}}, {}});
     sections.push_back(storage_section());
+    sections.push_back(calibration_section());
     return sections;
 }
 
@@ -179,6 +203,21 @@ const SectionSpec& ion_spec() {
                                   {KeySpec{"valence", ValueKind::integer, ge(-4), le(4), true, {}, 0, 0},
                                    number("concentration_mM", ge(0), le(max_concentration_mM))},
                                   {},
+                                  {}};
+    return spec;
+}
+
+const SectionSpec& calibration_point_spec() {
+    // relative_sd is the sd of ln W: 5 is already a factor e^5 = 150 either way.
+    static const SectionSpec spec{"points",
+                                  false,
+                                  {number("concentration_mM", gt(0), le(max_concentration_mM)),
+                                   number("stability_ratio", gt(0)),
+                                   number("rate_constant_m3_per_s", gt(0), lt(1e-15)),
+                                   number("relative_sd", gt(0), le(5)),
+                                   number("temperature_C", ge(0), le(100)),
+                                   of_kind("salt", ValueKind::salt_formula)},
+                                  {{"stability_ratio", "rate_constant_m3_per_s"}},
                                   {}};
     return spec;
 }

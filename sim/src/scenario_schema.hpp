@@ -20,6 +20,8 @@ enum class ValueKind {
     salt_formula,  // a string that potentials::parse_salt_formula accepts
     ion_list,      // array of { valence, concentration_mM } tables (checked by the electrolyte reader)
     number_list,   // array of KeySpec::min_items..max_items numbers, each finite and within min/max
+    choice_list,   // array of 1..choices.size() distinct KeySpec::choices
+    point_list,    // [calibration] points: array of tables (checked by the calibration reader)
 };
 
 struct Bound {
@@ -34,6 +36,9 @@ struct KeySpec {
     bool nonzero = false;                   // integers: 0 excluded (ion valence)
     std::vector<std::string_view> choices;  // ValueKind::choice
     std::size_t min_items = 0, max_items = 0;  // ValueKind::number_list: how many elements
+    // ValueKind::number only: a distribution ({ mean, sd }, { low, high }, { median, factor })
+    // is allowed in place of the number: uncertainty about this value (shelf-life estimates).
+    bool uncertain = false;
 };
 
 struct SectionSpec {
@@ -60,6 +65,8 @@ struct SectionSpec {
 [[nodiscard]] std::vector<std::string_view> section_names();
 // The tables inside [electrolyte] ions = [...].
 [[nodiscard]] const SectionSpec& ion_spec();
+// The tables inside [calibration] points = [...].
+[[nodiscard]] const SectionSpec& calibration_point_spec();
 
 // Bounds shared between the schema and the cross-key checks.
 inline constexpr int max_species = 16;

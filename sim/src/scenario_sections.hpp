@@ -20,6 +20,9 @@ void read_conditions(const std::string& source, const toml::table& root, Scenari
 // [interaction], [run], [output], [storage] (scenario_settings.cpp).
 void read_settings(const std::string& source, const toml::table& root, Scenario& scenario);
 
+// [calibration] (scenario_calibration.cpp).
+void read_calibration(const std::string& source, const toml::table& root, Scenario& scenario);
+
 // Records "[section] key = value" in scenario.defaults_applied.
 void note_default(Scenario& scenario, std::string_view section, std::string_view key, const std::string& value_toml);
 

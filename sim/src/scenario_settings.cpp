@@ -166,17 +166,16 @@ void read_storage(const toml::table& root, Scenario& s) {
     read.text("second_salt", st.second_salt);
     read.integer("samples", st.samples);
     read.integer("band_samples", st.band_samples);
-    // Optional: without it the settling distance is not computed.
-    st.particle_density_kg_per_m3 = number_at(table, "particle_density_kg_per_m3");
 }
 
 }  // namespace
 
-void read_settings(const std::string& /*source*/, const toml::table& root, Scenario& scenario) {
+void read_settings(const std::string& source, const toml::table& root, Scenario& scenario) {
     read_interaction(section_or_empty(root, "interaction"), scenario);
     read_run(section_or_empty(root, "run"), scenario);
     read_output(section_or_empty(root, "output"), scenario.output);
     read_storage(root, scenario);
+    read_calibration(source, root, scenario);
 }
 
 void note_default(Scenario& scenario, std::string_view section, std::string_view key, const std::string& value_toml) {

@@ -3,6 +3,7 @@
 
 #include "potentials/input_error.hpp"
 #include "scenario_check.hpp"
+#include "scenario_distribution.hpp"
 #include "scenario_sections.hpp"
 #include "scenario_text.hpp"
 
@@ -10,7 +11,7 @@ namespace brownfloc::sim::detail {
 namespace {
 
 SpeciesSpec read_one(const std::string& source, const toml::table& table, const std::string& section,
-                     std::string default_name, Scenario& scenario) {
+                     std::string default_name, int index, Scenario& scenario) {
     for (const std::string_view key : {"radius_nm", "hamaker_J", "surface_potential_mV"})
         require(source, table, section, key);
     SpeciesSpec species;
@@ -18,6 +19,13 @@ SpeciesSpec read_one(const std::string& source, const toml::table& table, const 
     species.radius_nm = *number_at(table, "radius_nm");
     species.hamaker_J = *number_at(table, "hamaker_J");
     species.surface_potential_mV = *number_at(table, "surface_potential_mV");
+    for (const auto& [key, slot] : {std::pair<std::string_view, InputSlot>{"radius_nm", InputSlot::radius_nm},
+                                    {"hamaker_J", InputSlot::hamaker_J},
+                                    {"surface_potential_mV", InputSlot::surface_potential_mV}}) {
+        std::string shown = "[";
+        shown.append(section).append("] ").append(key);
+        note_uncertain(scenario, table, key, slot, index, shown);
+    }
     if (const auto spread = number_at(table, "radius_spread")) {
         species.radius_spread = *spread;
     } else {
@@ -38,7 +46,8 @@ void read_species_array(const std::string& source, const toml::array& array, Sce
     for (std::size_t i = 0; i < array.size(); ++i) {
         const toml::table& table = *array[i].as_table();
         const std::string section = "species." + std::to_string(i + 1);
-        SpeciesSpec species = read_one(source, table, section, "species " + std::to_string(i + 1), scenario);
+        SpeciesSpec species = read_one(source, table, section, "species " + std::to_string(i + 1),
+                                       static_cast<int>(i), scenario);
         if (several) require(source, table, section, "number_fraction", "when there is more than one species");
         if (const auto fraction = number_at(table, "number_fraction")) {
             species.number_fraction = *fraction;
@@ -67,7 +76,7 @@ void read_species(const std::string& source, const toml::table& root, Scenario& 
                  ") are given; give one: [particle] is the one-species shorthand of [[species]]");
     if (!particle && !species) throw InputError(source + ": a scenario needs [particle] or [[species]]");
     if (particle) {
-        scenario.species.push_back(read_one(source, *particle->as_table(), "particle", "particle", scenario));
+        scenario.species.push_back(read_one(source, *particle->as_table(), "particle", "particle", 0, scenario));
         scenario.from_particle_table = true;
     } else {
         read_species_array(source, *species->as_array(), scenario);

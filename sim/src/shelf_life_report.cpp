@@ -1,11 +1,17 @@
 #include "sim/shelf_life_report.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <exception>
+#include <functional>
 #include <stdexcept>
 
+#include "potentials/ccc.hpp"
 #include "potentials/electrolyte.hpp"
+#include "potentials/grahame.hpp"
 #include "potentials/input_error.hpp"
+#include "potentials/water.hpp"
 #include "report_format.hpp"
 #include "sha256.hpp"
 #include "shelf_criteria/criterion_time.hpp"
@@ -14,6 +20,7 @@
 #include "sim/ccc_report.hpp"
 #include "sim/dlvo_report.hpp"
 #include "sim/scenario_physics.hpp"
+#include "sim/shelf_life_samples.hpp"
 
 namespace brownfloc::sim {
 
@@ -80,52 +87,13 @@ double time_from_log10_tau(double log10_tau, const ShelfLifeReport& r) {
     }
 }
 
-// Time to the criterion [s] for a scenario at one temperature; +inf when it overflows.
-double time_at(const Scenario& s, double temperature_K, const ShelfLifeReport& r, const Scenario& reference) {
-    const std::vector<StorageCondition> c =
-        storage_conditions(s, {temperature_K}, r.hold, reference.storage.hydrodynamic_correction, reference);
-    return time_from_log10_tau(c.front().log10_tau_s, r);
-}
-
-// The added salt at which the time to the criterion falls to the target (bisection; the
-// time falls as salt screens the double layer).
-SaltMargin margin_for(const Scenario& s, const std::string& formula, double temperature_K, double time_now_s,
-                      const ShelfLifeReport& r) {
-    SaltMargin margin;
-    if (time_now_s <= r.target_s) {
-        margin.reason = "already missed: without added salt the time is below the target";
-        return margin;
-    }
-    const double room = max_total_salt_mM - electrolyte_of(s).ionic_strength_mol_per_m3();
-    double hi = std::max(room, 1.0);
-    if (time_at(with_added_salt(s, formula, hi), temperature_K, r, s) > r.target_s) {
-        margin.reason = "never reached: even " + g4(hi) + " mM of " + formula + " added leaves the time above the target";
-        return margin;
-    }
-    double lo = 0;
-    for (int k = 0; k < 200 && (lo == 0 ? hi > 1e-9 : hi > lo * (1 + 1e-7)); ++k) {
-        const double mid = lo == 0 ? hi / 1000 : std::sqrt(lo * hi);
-        (time_at(with_added_salt(s, formula, mid), temperature_K, r, s) > r.target_s ? lo : hi) = mid;
-    }
-    margin.added_mM = hi;
-    return margin;
-}
-
-// Water density [kg/m^3] at 0-40 degC, Tanaka et al. 2001, Metrologia 38, 301 [memory for
-// the coefficients; 997.05 at 25 degC].
-double water_density_kg_per_m3(double temperature_K) {
-    const double t = temperature_K - 273.15;
-    const double a1 = -3.983035, a2 = 301.797, a3 = 522528.9, a4 = 69.34881, a5 = 999.974950;
-    return a5 * (1 - (t + a1) * (t + a1) * (t + a2) / (a3 * (t + a4)));
-}
-
 }  // namespace
 
 std::vector<std::string> shelf_life_cautions() {
     return {
         stability_caution(),
-        "The p5-p95 band reflects the uncertainty of the inputs only, not model error; this version treats every "
-        "input as exact, so the band is a single value.",
+        "The p5-p95 band reflects the uncertainty of the inputs only, not model error: the model-choice table shows "
+        "how far the choice of model alone moves the time.",
         "Zeta potentials understate the surface potential the double layer sets; a zeta-based estimate errs towards "
         "instability.",
         "DLVO omits specific adsorption of multivalent ions: the real tolerance to the second salt is usually lower "
@@ -140,181 +108,386 @@ std::vector<std::string> shelf_life_not_modelled() {
             "shear during mixing, filling and transport", "pH drift and charge regulation", "freeze-thaw cycles"};
 }
 
-ShelfLifeReport compute_shelf_life(const Scenario& s) {
+namespace {
+
+// Every sample of the band (the first band_samples of the Monte Carlo), or the point
+// scenario alone when no input varies; with the quadrature that goes with each.
+struct Ensemble {
+    std::vector<Scenario> members;
+    WQuadrature quadrature = WQuadrature::careful;
+};
+
+Percentiles percentiles_of(std::vector<double> values) {
+    std::sort(values.begin(), values.end());
+    return {uncertainty::estimate_percentile(values, 0.05), uncertainty::estimate_percentile(values, 0.50),
+            uncertainty::estimate_percentile(values, 0.95)};
+}
+
+// value(member) for every member of the ensemble, in parallel (OpenMP), each in its own slot:
+// the same bits at any thread count. The first error (by member) is rethrown after the loop,
+// since exceptions must not leave an OpenMP region.
+std::vector<double> over_members(const Ensemble& e, const std::function<double(const Scenario&)>& value) {
+    const std::size_t n = e.members.size();
+    std::vector<double> out(n);
+    std::vector<std::exception_ptr> errors(n);
+#pragma omp parallel for schedule(dynamic, 4)
+    for (std::size_t i = 0; i < n; ++i) {
+        try {
+            out[i] = value(e.members[i]);
+        } catch (...) {
+            errors[i] = std::current_exception();
+        }
+    }
+    for (const std::exception_ptr& error : errors)
+        if (error) std::rethrow_exception(error);
+    return out;
+}
+
+// Percentile p (0-1) over the ensemble of the time at one temperature, each member with
+// `change` applied (salt added); the charge reference of each member is the member itself.
+double ensemble_time_percentile(const Ensemble& e, double temperature_K, double p, const ShelfLifeReport& r,
+                                bool hydrodynamic, const std::function<Scenario(const Scenario&)>& change) {
+    std::vector<double> times = over_members(e, [&](const Scenario& member) {
+        const std::vector<StorageCondition> c =
+            storage_conditions(change(member), {temperature_K}, r.hold, hydrodynamic, member, e.quadrature);
+        return time_from_log10_tau(c.front().log10_tau_s, r);
+    });
+    std::sort(times.begin(), times.end());
+    return uncertainty::percentile(times, p);
+}
+
+// The added salt at which the p-th percentile of the time falls to the target. The time falls
+// as salt screens the double layer, so f(c) = ln(time_p(c) / target) falls through 0: a
+// bracket by decades down from the most salt allowed, then regula falsi (Illinois variant,
+// Dowell & Jarratt 1971, BIT 11, 168) in ln c, to |f| < 1e-4 (0.01 % in time).
+SaltMargin margin_for(const Ensemble& e, const std::string& formula, double temperature_K, double p,
+                      double time_now_s, const ShelfLifeReport& r, bool hydrodynamic) {
+    SaltMargin margin;
+    if (!(time_now_s > r.target_s)) {
+        margin.reason = "already missed: without added salt the time is at or below the target";
+        return margin;
+    }
+    const double room = std::max(max_total_salt_mM - electrolyte_of(e.members.front()).ionic_strength_mol_per_m3(), 1.0);
+    const auto f = [&](double added_mM) {
+        const double t = ensemble_time_percentile(e, temperature_K, p, r, hydrodynamic, [&](const Scenario& s) {
+            return with_added_salt(s, formula, added_mM);
+        });
+        return std::isfinite(t) ? std::log(t / r.target_s) : 1e3;
+    };
+    double hi = room, f_hi = f(hi);
+    if (f_hi > 0) {
+        margin.reason = "never reached: even " + g4(room) + " mM of " + formula + " added leaves the time above the target";
+        return margin;
+    }
+    double lo = hi / 10, f_lo = f(lo);
+    while (f_lo <= 0 && lo > 1e-9) {
+        hi = lo;
+        f_hi = f_lo;
+        lo /= 10;
+        f_lo = f(lo);
+    }
+    if (f_lo <= 0) {
+        margin.added_mM = lo;  // below 1e-9 mM: the target is missed with a trace of salt
+        return margin;
+    }
+    double x_lo = std::log(lo), x_hi = std::log(hi);
+    int side = 0;
+    for (int k = 0; k < 100; ++k) {
+        const double x = (x_lo * f_hi - x_hi * f_lo) / (f_hi - f_lo);
+        const double fx = f(std::exp(x));
+        if (std::abs(fx) < 1e-4 || x_hi - x_lo < 1e-12) {
+            margin.added_mM = std::exp(x);
+            return margin;
+        }
+        if (fx > 0) {
+            x_lo = x;
+            f_lo = fx;
+            if (side == +1) f_hi /= 2;
+            side = +1;
+        } else {
+            x_hi = x;
+            f_hi = fx;
+            if (side == -1) f_lo /= 2;
+            side = -1;
+        }
+    }
+    margin.added_mM = std::exp(0.5 * (x_lo + x_hi));
+    return margin;
+}
+
+// The scenario at concentration c_mM of its varied salt: the titrant added on top, or the
+// [electrolyte] salt at that concentration.
+Scenario at_varied_salt(const Scenario& s, double c_mM) {
+    if (s.titrant) return with_added_salt(s, *s.titrant, c_mM);
+    Scenario out = s;
+    out.salt_concentration_mM = c_mM;
+    return out;
+}
+
+// The barrier CCC [mM] of the varied salt (Verwey & Overbeek 1948: the salt at which the
+// highest maximum of U falls to 0 kT) for the pair that loses its barrier first, with the
+// surface held as the estimate holds it: at a fixed charge the potentials fall as the salt
+// rises (Grahame 1947), which brings the CCC down. 0 when no pair has a barrier even at 1 uM;
+// +inf when every barrier survives 5 M.
+double barrier_ccc_mM(const Scenario& s, SurfaceHold hold) {
+    const potentials::Medium medium = medium_of(s);
+    std::vector<double> charge_C_per_m2;
+    if (hold == SurfaceHold::charge)
+        for (const SpeciesSpec& sp : s.species)
+            charge_C_per_m2.push_back(
+                potentials::grahame_surface_charge_C_per_m2(sp.surface_potential_mV * 1e-3, electrolyte_of(s), medium));
+    double lowest = INFINITY;
+    for (std::size_t i = 0; i < s.species.size(); ++i)
+        for (std::size_t j = i; j < s.species.size(); ++j) {
+            const potentials::PairAtConcentration make_pair = [&](double c_mM) {
+                const potentials::Electrolyte electrolyte = electrolyte_with_varied_salt(s, c_mM);
+                Scenario at = s;
+                for (std::size_t k = 0; k < charge_C_per_m2.size(); ++k)
+                    at.species[k].surface_potential_mV =
+                        potentials::grahame_surface_potential_V(charge_C_per_m2[k], electrolyte, medium) * 1e3;
+                return potentials::PairInteraction(pair_model(at, i, j), medium, electrolyte);
+            };
+            const potentials::CccResult barrier = potentials::barrier_ccc(make_pair, min_gap_m(s));
+            if (barrier.status == potentials::CccStatus::no_barrier_anywhere) return 0.0;
+            if (barrier.concentration_mol_per_m3) lowest = std::min(lowest, *barrier.concentration_mol_per_m3);
+        }
+    return lowest;
+}
+
+// The barrier CCC of a scenario at one storage temperature, starting from the potentials it
+// has there.
+double ccc_at_temperature(const Scenario& m, double temperature_K, const ShelfLifeReport& r) {
+    Scenario at = m;
+    const std::vector<StorageCondition> c = storage_conditions(at, {temperature_K}, r.hold, false, at, WQuadrature::fast);
+    at.temperature_K = temperature_K;
+    for (std::size_t k = 0; k < at.species.size(); ++k) at.species[k].surface_potential_mV = c.front().surface_potential_mV[k];
+    return barrier_ccc_mM(at, r.hold);
+}
+
+// The barrier CCC of the varied salt for each member at one temperature, ascending.
+std::vector<double> ensemble_cccs(const Ensemble& e, double temperature_K, const ShelfLifeReport& r) {
+    std::vector<double> cccs =
+        over_members(e, [&](const Scenario& member) { return ccc_at_temperature(member, temperature_K, r); });
+    std::sort(cccs.begin(), cccs.end());
+    return cccs;
+}
+
+std::optional<double> finite_or_empty(double v) { return std::isfinite(v) ? std::optional<double>(v) : std::nullopt; }
+
+std::string concentration_note(const Scenario& s) {
+    bool radius_varies = false;
+    for (const UncertainInput& u : s.uncertain_inputs)
+        radius_varies = radius_varies || (u.slot == InputSlot::radius_nm && !u.distribution.is_point());
+    std::string held = s.number_density_per_m3 ? "the number density is held fixed while the radius varies"
+                       : s.mass_fraction       ? "the mass fraction is held fixed while the radius varies, so the "
+                                                 "number density follows 1/a^3"
+                                               : "the volume fraction is held fixed while the radius varies, so the "
+                                                 "number density follows 1/a^3";
+    return radius_varies ? held : held + " (the radius does not vary here)";
+}
+
+// The time at the first temperature with every input at its median, under each double-layer
+// model, with and without retardation, with and without the Honig factor.
+std::vector<ModelChoice> model_choices(const Scenario& s, const ShelfLifeReport& r, double temperature_K) {
+    std::vector<ModelChoice> out;
+    for (const auto model : {potentials::DoubleLayerModel::linear_superposition,
+                             potentials::DoubleLayerModel::constant_potential,
+                             potentials::DoubleLayerModel::constant_charge})
+        for (const bool retarded : {false, true})
+            for (const bool honig : {true, false}) {
+                Scenario at = s;
+                at.double_layer = model;
+                at.retarded_vdw = retarded;
+                const StorageCondition c = storage_conditions(at, {temperature_K}, r.hold, honig, s).front();
+                ModelChoice m;
+                m.double_layer = double_layer_name(model);
+                m.retarded_vdw = retarded;
+                m.hydrodynamic_correction = honig;
+                m.log10_w = c.log10_stability_ratio;
+                const double t = time_from_log10_tau(c.log10_tau_s, r);
+                m.beyond_range = !(t <= shelf_life_time_limit_s);
+                m.time_s = m.beyond_range ? shelf_life_time_limit_s : t;
+                m.is_scenario_choice = model == s.double_layer && retarded == s.retarded_vdw &&
+                                       honig == s.storage.hydrodynamic_correction;
+                out.push_back(m);
+            }
+    return out;
+}
+
+// The plot: the time at the first temperature against the varied salt, p50 and the pointwise
+// p5-p95 band over the ensemble, on 25 concentrations spread evenly in log c.
+ShelfLifePlotData plot_data(const Scenario& s, const Ensemble& e, const ShelfLifeReport& r) {
+    if (!s.titrant && !s.salt)
+        throw InputError(s.source + ": --plot: the plot varies the salt, and [electrolyte] has no salt or titrant");
+    const double temperature_K = r.conditions.front().condition.temperature_K;
+    double low = 0.1, high = 1000;
+    if (r.ccc_mM && *r.ccc_mM > 0) {
+        low = *r.ccc_mM / 100;
+        high = *r.ccc_mM * 3;
+    }
+    if (r.present_salt_mM && *r.present_salt_mM > 0) {
+        low = std::min(low, *r.present_salt_mM / 10);
+        high = std::max(high, *r.present_salt_mM * 10);
+    }
+    high = std::min(high, max_total_salt_mM);
+    ShelfLifePlotData d;
+    const int points = 25;
+    for (int k = 0; k < points; ++k) {
+        const double c = low * std::pow(high / low, double(k) / (points - 1));
+        const auto change = [&](const Scenario& m) { return at_varied_salt(m, c); };
+        d.salt_mM.push_back(c);
+        d.p5_s.push_back(ensemble_time_percentile(e, temperature_K, 0.05, r, s.storage.hydrodynamic_correction, change));
+        d.p50_s.push_back(ensemble_time_percentile(e, temperature_K, 0.50, r, s.storage.hydrodynamic_correction, change));
+        d.p95_s.push_back(ensemble_time_percentile(e, temperature_K, 0.95, r, s.storage.hydrodynamic_correction, change));
+    }
+    d.salt_name = r.varied_salt + (s.titrant ? " added" : "");
+    d.criterion_label = std::string(shelf::criterion_name(r.criterion.criterion)) + " " + g4(r.criterion.value);
+    d.title = "Time to " + d.criterion_label + " at " + g4(temperature_K - 273.15) + " degC against " + r.varied_salt;
+    d.present_salt_mM = r.present_salt_mM;
+    d.ccc_mM = r.ccc_mM;
+    d.target_s = r.target_s;
+    d.caption_lines = {"Band: pointwise p5-p95 over " + std::to_string(e.members.size()) +
+                           " Monte Carlo samples; it reflects input uncertainty only, not model error.",
+                       stability_caution()};
+    return d;
+}
+
+}  // namespace
+
+ShelfLifeReport compute_shelf_life(const Scenario& given, const ShelfLifeOptions& options) {
     ShelfLifeReport r;
-    r.criterion = criterion_of(s);
-    r.primary_radius_m = primary_radius_m(s);
-    r.target_s = s.storage.target_days * seconds_per_day;
-    r.hold = s.storage.surface_hold == "charge" ? SurfaceHold::charge : SurfaceHold::potential;
+    r.criterion = criterion_of(given);
+    r.target_s = given.storage.target_days * seconds_per_day;
+    r.hold = given.storage.surface_hold == "charge" ? SurfaceHold::charge : SurfaceHold::potential;
     std::vector<double> temperatures_K;
-    for (double t_C : s.storage.temperatures_C) {
+    for (double t_C : given.storage.temperatures_C) {
         if (!(t_C >= 0.0 && t_C <= 100.0))
-            throw InputError(s.source + ": [storage] temperatures_C = " + g4(t_C) +
+            throw InputError(given.source + ": [storage] temperatures_C = " + g4(t_C) +
                              ": the water correlations hold from 0 to 100 degC");
         temperatures_K.push_back(t_C + 273.15);
     }
-    const std::vector<StorageCondition> conditions =
-        storage_conditions(s, temperatures_K, r.hold, s.storage.hydrodynamic_correction);
+    const bool hydrodynamic = given.storage.hydrodynamic_correction;
+
+    // A calibration replaces the fitted parameters by their estimates, and the Monte Carlo
+    // then draws them jointly from the fit.
+    Scenario s = given;
+    std::optional<JointDraw> joint;
+    if (given.calibration_given) {
+        r.calibration = calibrate(given);
+        s = with_fit_values(given, r.calibration->fit_values);
+        // A fitted value is drawn from the fit, not from a distribution the scenario gives it.
+        const auto fitted = [&](const UncertainInput& u) {
+            for (const std::string& name : given.calibration.parameters)
+                if ((name == "surface_potential_mV" && u.slot == InputSlot::surface_potential_mV) ||
+                    (name == "hamaker_J" && u.slot == InputSlot::hamaker_J))
+                    return true;
+            return false;
+        };
+        for (const UncertainInput& u : given.uncertain_inputs)
+            if (fitted(u))
+                r.warnings.push_back(u.key + " = " + u.distribution.text() +
+                                     ": replaced by the calibration, whose fit the Monte Carlo draws from");
+        std::erase_if(s.uncertain_inputs, fitted);
+        std::vector<std::string> names;
+        for (const std::string& coordinate : r.calibration->fit_coordinates) names.push_back("fitted " + coordinate);
+        joint = JointDraw{names, r.calibration->fit_values, r.calibration->covariance,
+                          [](const Scenario& base, const std::vector<double>& x) { return with_fit_values(base, x); }};
+        for (const std::string& w : r.calibration->warnings) r.warnings.push_back("calibration: " + w);
+    }
+    r.primary_radius_m = primary_radius_m(s);
+    r.number_density_per_m3 = number_density_per_m3(s).value_or(0.0);
+    const std::vector<StorageCondition> conditions = storage_conditions(s, temperatures_K, r.hold, hydrodynamic);
     if (auto w = shelf::early_stage_warning(r.criterion)) r.warnings.push_back(*w);
+    r.concentration_note = concentration_note(s);
+
+    // The Monte Carlo (or the point estimate alone when nothing varies).
+    const ShelfLifeSampler sampler(s, joint ? &*joint : nullptr);
+    r.inputs_vary = sampler.varies();
+    r.input_names = sampler.input_names();
+    const auto time_for = [&r](double log10_tau) { return time_from_log10_tau(log10_tau, r); };
+    SampledConditions sampled;
+    Ensemble band;
+    if (r.inputs_vary) {
+        r.samples = static_cast<std::uint64_t>(s.storage.samples);
+        r.band_samples = std::min<std::uint64_t>(r.samples, static_cast<std::uint64_t>(s.storage.band_samples));
+        sampled = sample_conditions(sampler, r.samples, temperatures_K, r.hold, hydrodynamic, time_for);
+        band.quadrature = WQuadrature::fast;
+        for (std::uint64_t i = 0; i < r.band_samples; ++i) band.members.push_back(sampler.sample(i));
+    } else {
+        sampled.inputs.assign(r.input_names.size(), {});
+        for (std::size_t j = 0; j < r.input_names.size(); ++j) sampled.inputs[j] = {0.0};
+        for (const StorageCondition& c : conditions) {
+            sampled.log10_w.push_back({c.log10_stability_ratio});
+            sampled.log10_tau_s.push_back({c.log10_tau_s});
+            sampled.time_s.push_back({time_for(c.log10_tau_s)});
+        }
+        band.members = {s};
+    }
 
     const bool has_varied_salt = s.titrant.has_value() || s.salt.has_value();
     if (has_varied_salt) r.varied_salt = varied_salt_name(s);
-    if (s.salt) r.present_salt_mM = s.salt_concentration_mM;
-    for (const StorageCondition& c : conditions) {
+    if (s.salt && !s.titrant) r.present_salt_mM = s.salt_concentration_mM;
+    for (std::size_t k = 0; k < conditions.size(); ++k) {
         ConditionEstimate e;
-        e.condition = c;
-        const double t = time_from_log10_tau(c.log10_tau_s, r);  // tau of this condition, computed above
-        e.beyond_range = !(t <= shelf_life_time_limit_s);
-        e.time_to_criterion_s = e.beyond_range ? shelf_life_time_limit_s : t;
-        e.time_over_target = e.time_to_criterion_s / r.target_s;
-        if (has_varied_salt) e.added_salt = margin_for(s, r.varied_salt, c.temperature_K, t, r);
-        else e.added_salt.reason = "no salt formula in [electrolyte] (salt or titrant) to add";
-        e.added_second_salt = margin_for(s, s.storage.second_salt, c.temperature_K, t, r);
+        e.condition = conditions[k];
+        e.time_s = percentiles_of(sampled.time_s[k]);
+        e.log10_w = percentiles_of(sampled.log10_w[k]);
+        e.log10_half_life_s = percentiles_of(sampled.log10_tau_s[k]);
+        e.p5_time_over_target = std::min(e.time_s.p5.value, shelf_life_time_limit_s) / r.target_s;
+        const double T = conditions[k].temperature_K;
+        const double band_p5 = ensemble_time_percentile(band, T, 0.05, r, hydrodynamic, [](const Scenario& m) { return m; });
+        const double band_p50 = ensemble_time_percentile(band, T, 0.50, r, hydrodynamic, [](const Scenario& m) { return m; });
+        if (has_varied_salt) {
+            e.added_salt_p5 = margin_for(band, r.varied_salt, T, 0.05, band_p5, r, hydrodynamic);
+            e.added_salt_p50 = margin_for(band, r.varied_salt, T, 0.50, band_p50, r, hydrodynamic);
+            const std::vector<double> cccs = ensemble_cccs(band, T, r);
+            e.ccc_p5_mM = finite_or_empty(uncertainty::percentile(cccs, 0.05));
+            e.ccc_p50_mM = finite_or_empty(uncertainty::percentile(cccs, 0.50));
+        } else {
+            e.added_salt_p5.reason = e.added_salt_p50.reason = "no salt formula in [electrolyte] (salt or titrant) to add";
+        }
+        e.added_second_salt_p5 = margin_for(band, s.storage.second_salt, T, 0.05, band_p5, r, hydrodynamic);
+        e.added_second_salt_p50 = margin_for(band, s.storage.second_salt, T, 0.50, band_p50, r, hydrodynamic);
+        if (!r.inputs_vary) {
+            e.sensitivity_note = "no input varies: nothing to rank";
+        } else {
+            std::vector<uncertainty::SampledInput> inputs;
+            for (std::size_t j = 0; j < r.input_names.size(); ++j) inputs.push_back({r.input_names[j], sampled.inputs[j]});
+            try {
+                e.sensitivity = uncertainty::rank_sensitivity(inputs, sampled.time_s[k]);
+                if (!e.sensitivity->output_varied) e.sensitivity_note = "the time does not vary over the samples";
+                else if (!e.sensitivity->reliable)
+                    e.sensitivity_note = "R^2 = " + g4(e.sensitivity->r_squared) +
+                                         " < 0.7: the ranking is unreliable (non-monotone or interacting effects)";
+            } catch (const std::exception& error) {
+                e.sensitivity_note = std::string("no ranking: ") + error.what();
+            }
+        }
         r.conditions.push_back(std::move(e));
     }
 
     if (has_varied_salt) {
-        try {
-            const CccReport ccc = compute_ccc_report(s);
-            const PairCcc& limiting = ccc.pairs.at(ccc.limiting_pair);
-            r.ccc_mM = limiting.ccc_mM;
-            if (!r.ccc_mM) r.ccc_note = limiting.ccc_note;
-        } catch (const InputError& error) {
-            r.ccc_note = error.what();
-        }
+        const double ccc = ccc_at_temperature(s, temperatures_K.front(), r);
+        r.ccc_mM = finite_or_empty(ccc);
+        if (!r.ccc_mM) r.ccc_note = "the barrier survives 5 M of " + r.varied_salt;
     } else {
         r.ccc_note = "no salt formula in [electrolyte] (salt or titrant): the CCC needs a salt to vary";
     }
+    r.model_choices = model_choices(s, r, temperatures_K.front());
 
-    if (s.storage.particle_density_kg_per_m3) {
+    if (s.particle_density_kg_per_m3) {
         const StorageCondition& ref = conditions.front();
-        const double drho = *s.storage.particle_density_kg_per_m3 - water_density_kg_per_m3(ref.temperature_K);
+        const double drho = *s.particle_density_kg_per_m3 - potentials::water_density_kg_per_m3(ref.temperature_K);
         const double velocity = 2 * r.primary_radius_m * r.primary_radius_m * drho * standard_gravity_m_per_s2 /
                                 (9 * ref.medium.viscosity_Pa_s);
         r.settling_distance_m = velocity * r.target_s;
         r.settling_note = velocity >= 0 ? "settles (Stokes, single particles, at the first temperature)"
                                         : "creams upwards (negative distance; Stokes, single particles)";
     } else {
-        r.settling_note = "give [storage] particle_density_kg_per_m3 for the Stokes settling distance";
+        r.settling_note = "give [suspension] particle_density_kg_per_m3 for the Stokes settling distance";
     }
+    if (options.plot) r.plot = plot_data(s, band, r);
     return r;
-}
-
-Json shelf_life_json(const ShelfLifeReport& r, const Scenario& s) {
-    Json j = Json::object();
-    j.set("criterion", std::string(shelf::criterion_name(r.criterion.criterion)));
-    j.set("criterion_value", r.criterion.value);
-    if (r.criterion.criterion == shelf::Criterion::z_average_growth) {
-        j.set("optics", std::string(shelf::optics_name(r.criterion.scattering.optics)));
-        j.set("fractal_dimension", r.criterion.fractal_dimension);
-    }
-    j.set("target_days", s.storage.target_days);
-    j.set("surface_hold", s.storage.surface_hold);
-    j.set("hydrodynamic_correction", s.storage.hydrodynamic_correction);
-    j.set("primary_radius_nm", r.primary_radius_m * 1e9);
-    j.set("uncertainty_note", "every input is taken as exact in this version: p5 = p50 = p95");
-    Json conditions = Json::array();
-    for (const ConditionEstimate& e : r.conditions) {
-        const StorageCondition& c = e.condition;
-        Json item = Json::object();
-        item.set("temperature_C", c.temperature_K - 273.15);
-        item.set("surface_potential_mV", Json(Json::Array(c.surface_potential_mV.begin(), c.surface_potential_mV.end())));
-        item.set("debye_length_nm", c.debye_length_nm);
-        item.set_number_or_null("stability_ratio", c.log10_stability_ratio < 300 ? std::optional<double>(std::pow(10.0, c.log10_stability_ratio)) : std::nullopt,
-                                "above 1e300; see log10_stability_ratio");
-        item.set("log10_stability_ratio", c.log10_stability_ratio);
-        item.set("half_life_fast_s", c.half_life_fast_s);
-        item.set_number_or_null("half_life_s", c.log10_tau_s < 300 ? std::optional<double>(std::pow(10.0, c.log10_tau_s)) : std::nullopt,
-                                "above 1e300 s; see log10_half_life_s");
-        item.set("log10_half_life_s", c.log10_tau_s);
-        Json times = Json::object();
-        times.set("p5", e.time_to_criterion_s);
-        times.set("p50", e.time_to_criterion_s);
-        times.set("p95", e.time_to_criterion_s);
-        item.set("time_to_criterion_s", times);
-        item.set("beyond_range", e.beyond_range);
-        item.set("p5_time_over_target", e.time_over_target);
-        item.set("acceleration_vs_reference", c.acceleration_vs_reference);
-        item.set("acceleration_from_medium", c.acceleration_from_medium);
-        item.set("acceleration_from_stability", c.acceleration_from_stability);
-        item.set("rule_of_thumb_factor", c.rule_of_thumb_factor);
-        for (const auto& [key, margin] : {std::pair<const char*, const SaltMargin*>{"added_salt_to_target_mM", &e.added_salt},
-                                          {"added_second_salt_to_target_mM", &e.added_second_salt}}) {
-            Json m = Json::object();
-            m.set_number_or_null("p5", margin->added_mM, margin->reason);
-            m.set_number_or_null("p50", margin->added_mM, margin->reason);
-            if (!margin->added_mM) m.set("reason", margin->reason);
-            item.set(key, m);
-        }
-        conditions.push(item);
-    }
-    j.set("conditions", conditions);
-    j.set("rule_of_thumb_note", rule_of_thumb_caution());
-    j.set("varied_salt", r.varied_salt.empty() ? Json() : Json(r.varied_salt));
-    if (r.varied_salt.empty()) j.set("varied_salt_note", "no salt formula in [electrolyte] (salt or titrant)");
-    j.set("second_salt", s.storage.second_salt);
-    j.set_number_or_null("present_salt_mM", r.present_salt_mM, "the electrolyte is an ion list: no single salt");
-    j.set_number_or_null("ccc_mM", r.ccc_mM, r.ccc_note.empty() ? "no CCC" : r.ccc_note);
-    std::optional<double> margin;
-    if (r.ccc_mM && r.present_salt_mM && *r.present_salt_mM > 0) margin = *r.ccc_mM / *r.present_salt_mM;
-    j.set_number_or_null("salt_margin", margin, "needs the CCC and a present salt concentration above 0");
-    j.set_number_or_null("settling_distance_m", r.settling_distance_m, r.settling_note);
-    j.set("not_modelled", Json(shelf_life_not_modelled()));
-    j.set("cautions", Json(shelf_life_cautions()));
-    j.set("warnings", Json(r.warnings));
-    j.set("input_sha256", sha256_hex(resolved_scenario_toml(s)));
-    j.set("seed", s.run.seed);
-    j.set("samples", std::int64_t{1});
-    add_common_json(j, s);
-    return j;
-}
-
-void write_shelf_life_text(std::ostream& out, const ShelfLifeReport& r, const Scenario& s) {
-    out << "Shelf-life estimate for " << s.source << "\n";
-    out << "  criterion: " << shelf::criterion_name(r.criterion.criterion) << " = " << g4(r.criterion.value)
-        << "; target " << g4(s.storage.target_days) << " days; surface " << s.storage.surface_hold
-        << " held fixed across temperatures; W " << (s.storage.hydrodynamic_correction ? "with" : "without")
-        << " hydrodynamic drainage\n";
-    out << "  every input is taken as exact in this version (no uncertainty band yet)\n\n";
-    out << "  T (degC)   log10 W   t1/2 fast (s)   W t1/2 (s)   time to criterion (days)   time / target   "
-           "acceleration (T/eta x W)   2^(dT/10)\n";
-    for (const ConditionEstimate& e : r.conditions) {
-        const StorageCondition& c = e.condition;
-        char line[320];
-        std::snprintf(line, sizeof line, "  %7.1f  %8.3f   %13.4g   %10.4g   %24s   %13.4g   %8.3g (%.3g x %.3g)   %9.3g\n",
-                      c.temperature_K - 273.15, c.log10_stability_ratio, c.half_life_fast_s, std::pow(10.0, c.log10_tau_s),
-                      (e.beyond_range ? std::string("> ") + g4(shelf_life_time_limit_s / seconds_per_day)
-                                      : g4(e.time_to_criterion_s / seconds_per_day)).c_str(),
-                      e.time_over_target, c.acceleration_vs_reference, c.acceleration_from_medium,
-                      c.acceleration_from_stability, c.rule_of_thumb_factor);
-        out << line;
-    }
-    out << "  " << rule_of_thumb_caution() << "\n\n";
-    out << "Salt margins (added on top of the present ions, at which the time falls to the target)\n";
-    for (const ConditionEstimate& e : r.conditions) {
-        out << "  " << g4(e.condition.temperature_K - 273.15) << " degC: ";
-        out << (r.varied_salt.empty() ? std::string("salt") : r.varied_salt) << " "
-            << (e.added_salt.added_mM ? g4(*e.added_salt.added_mM) + " mM" : e.added_salt.reason) << "; "
-            << s.storage.second_salt << " "
-            << (e.added_second_salt.added_mM ? g4(*e.added_second_salt.added_mM) + " mM" : e.added_second_salt.reason)
-            << "\n";
-    }
-    if (r.ccc_mM) out << "  CCC of " << r.varied_salt << ": " << g4(*r.ccc_mM) << " mM\n";
-    else out << "  CCC: " << r.ccc_note << "\n";
-    out << "\nNot modelled: ";
-    const auto missing = shelf_life_not_modelled();
-    for (std::size_t k = 0; k < missing.size(); ++k) out << (k ? "; " : "") << missing[k];
-    out << ".\n";
-    if (r.settling_distance_m) out << "Stokes settling over the target time: " << g4(*r.settling_distance_m * 1e3)
-                                   << " mm (" << r.settling_note << ")\n";
-    else out << "Settling: " << r.settling_note << "\n";
-    std::vector<std::string> warnings = r.warnings;
-    out << "\nCautions\n";
-    for (const std::string& c : shelf_life_cautions()) out << "  - " << c << "\n";
-    if (!warnings.empty()) {
-        out << "\nWarnings\n";
-        for (const std::string& w : warnings) out << "  - " << w << "\n";
-    }
 }
 
 }  // namespace brownfloc::sim

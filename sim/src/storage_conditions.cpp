@@ -3,6 +3,7 @@
 #include <cmath>
 #include <limits>
 
+#include "potentials/fast_stability_ratio.hpp"
 #include "potentials/grahame.hpp"
 #include "potentials/input_error.hpp"
 #include "potentials/kinetics.hpp"
@@ -40,7 +41,7 @@ std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const
 
 std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const std::vector<double>& temperatures_K,
                                                  SurfaceHold hold, bool hydrodynamic_correction,
-                                                 const Scenario& charge_reference) {
+                                                 const Scenario& charge_reference, WQuadrature quadrature) {
     if (temperatures_K.empty()) throw InputError(scenario.source + ": [storage] temperatures_C: at least one is needed");
     if (temperatures_K.size() > 1) {
         if (scenario.viscosity_mPa_s)
@@ -88,8 +89,10 @@ std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const
             for (std::size_t j = 0; j < species; ++j) {
                 const potentials::PairModel model = pair_model(at, i, j);
                 const potentials::PairInteraction pair(model, c.medium, electrolyte);
-                const potentials::StabilityRatios w = potentials::stability_ratios(pair, min_gap_m(at));
-                const double log_w = hydrodynamic_correction ? w.log_w_hydrodynamic : w.log_w;
+                const double log_w =
+                    quadrature == WQuadrature::fast
+                        ? potentials::log_stability_ratio_fast(pair, min_gap_m(at), hydrodynamic_correction)
+                        : potentials::log_stability_ratio(pair, min_gap_m(at), hydrodynamic_correction);
                 const double weight = at.species[i].number_fraction * at.species[j].number_fraction;
                 const double log_fast = std::log(weight * potentials::fast_rate_m3_per_s(
                                                               model.radius1_m, model.radius2_m, temperature_K,

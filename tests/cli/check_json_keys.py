@@ -21,11 +21,15 @@ CCC_KEYS = ["ccc_mM", "ccc_definition", "ccc_by_valence_mM", "schulze_hardy_expo
             "dlog10W_dlog10c", "warnings", "caution"]
 SHELF_TOP_KEYS = ["criterion", "criterion_value", "target_days", "surface_hold", "hydrodynamic_correction",
                   "conditions", "rule_of_thumb_note", "ccc_mM", "salt_margin", "settling_distance_m",
-                  "not_modelled", "cautions", "warnings", "input_sha256", "seed", "samples", "caution"]
+                  "not_modelled", "cautions", "warnings", "input_sha256", "seed", "samples", "caution",
+                  "band_samples", "inputs_vary", "uncertain_inputs", "concentration_note", "model_choices",
+                  "number_density_per_m3", "time_over_tau", "brownfloc_version", "present_salt_mM", "second_salt_note"]
 SHELF_CONDITION_KEYS = ["temperature_C", "stability_ratio", "log10_stability_ratio", "half_life_fast_s",
                         "half_life_s", "time_to_criterion_s", "beyond_range", "p5_time_over_target",
                         "acceleration_vs_reference", "acceleration_from_medium", "acceleration_from_stability",
-                        "rule_of_thumb_factor", "added_salt_to_target_mM", "added_second_salt_to_target_mM"]
+                        "rule_of_thumb_factor", "added_salt_to_target_mM", "added_second_salt_to_target_mM",
+                        "ccc_mM", "salt_margin", "sensitivity", "log10_stability_ratio_percentiles",
+                        "log10_half_life_s_percentiles"]
 
 
 def check_values(node, path, problems, noted_by_parent=False):
@@ -60,8 +64,14 @@ def main():
         for i, c in enumerate(doc.get("conditions", [])):
             problems += [f"conditions.{i}: missing {k}" for k in SHELF_CONDITION_KEYS if k not in c]
             times = c.get("time_to_criterion_s", {})
-            if set(times) != {"p5", "p50", "p95"}:
-                problems.append(f"conditions.{i}.time_to_criterion_s must hold p5, p50, p95")
+            if not {"p5", "p50", "p95"} <= set(times) or not all(
+                    isinstance(times.get(p), (int, float)) and 0 < times[p] <= 1e12 for p in ("p5", "p50", "p95")):
+                problems.append(f"conditions.{i}.time_to_criterion_s must hold p5, p50, p95 in (0, 1e12] s")
+            elif not times["p5"] <= times["p50"] <= times["p95"]:
+                problems.append(f"conditions.{i}.time_to_criterion_s: p5 <= p50 <= p95 fails")
+            for margin in ("added_salt_to_target_mM", "added_second_salt_to_target_mM"):
+                if not {"p5", "p50"} <= set(c.get(margin, {})):
+                    problems.append(f"conditions.{i}.{margin} must hold p5 and p50")
         if not any("do not use it to turn accelerated-test results" in doc.get("rule_of_thumb_note", "") for _ in [0]):
             problems.append("the rule-of-thumb sentence is missing")
     else:

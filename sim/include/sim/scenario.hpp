@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "potentials/double_layer.hpp"
+#include "uncertainty/distribution.hpp"
 
 namespace brownfloc::sim {
 
@@ -76,9 +77,54 @@ struct StorageSettings {  // [storage]: used by `brownfloc shelf-life`; validate
     std::string second_salt = "CaCl2";           // salt formula added on top for the second margin
     std::int64_t samples = 10000;                // Monte Carlo samples (>= 1)
     std::int64_t band_samples = 1000;            // samples per point of the margins and the plot band
-    std::optional<double> particle_density_kg_per_m3;  // for the Stokes settling distance
 
     friend bool operator==(const StorageSettings&, const StorageSettings&) = default;
+};
+
+// [calibration] points = [...]: one measurement of the aggregation rate of the dispersion in
+// a solution of one salt (that salt alone at concentration_mM is the electrolyte of the
+// measurement; the scenario's own ions play no part in it).
+struct CalibrationPoint {
+    double concentration_mM = 0.0;                // > 0
+    std::optional<double> stability_ratio;        // measured W (>= ... see w_reference); or
+    std::optional<double> rate_constant_m3_per_s; // a measured rate constant (rate_convention says which k)
+    double relative_sd = 0.2;                     // of the measured value (sd of ln W), > 0
+    std::optional<double> temperature_C;          // default: the scenario's temperature
+    std::optional<std::string> salt;              // default: the scenario's salt (titrant first)
+
+    friend bool operator==(const CalibrationPoint&, const CalibrationPoint&) = default;
+};
+
+struct CalibrationSettings {  // [calibration]: used by `brownfloc shelf-life`
+    std::vector<CalibrationPoint> points;
+    std::optional<double> ccc_mM;                  // a measured CCC of the points' salt
+    double ccc_relative_sd = 0.1;                  // of the measured CCC
+    std::string w_reference = "measured-fast";     // | "smoluchowski"
+    std::optional<std::string> rate_convention;    // "k" (dN/dt = -k N^2 / 2) | "half-k" (dN/dt = -k' N^2)
+    std::optional<double> fast_rate_constant_m3_per_s;  // measured-fast with rate constants: the plateau rate
+    std::vector<std::string> parameters{"surface_potential_mV"};  // and/or "hamaker_J"
+
+    friend bool operator==(const CalibrationSettings&, const CalibrationSettings&) = default;
+};
+
+// A scenario value written as a distribution ({ mean, sd }, { low, high }, { median, factor }):
+// uncertainty about that one value. The Scenario field itself holds the median, which is what
+// every command but `shelf-life` uses (`run` refuses distributions).
+enum class InputSlot {
+    radius_nm, hamaker_J, surface_potential_mV,  // per species
+    volume_fraction, number_density_per_m3, mass_fraction, particle_density_kg_per_m3,
+    viscosity_mPa_s, relative_permittivity,
+    salt_concentration_mM,
+};
+
+struct UncertainInput {
+    InputSlot slot = InputSlot::radius_nm;
+    int species = 0;                  // for the per-species slots (0-based)
+    std::string key;                  // as written: "[particle] radius_nm", "[species.2] hamaker_J"
+    uncertainty::Distribution distribution = uncertainty::Distribution::point(0.0);
+    std::uint32_t input_index = 0;    // Monte Carlo input j: fixed by the slot, see input_index_of
+
+    friend bool operator==(const UncertainInput&, const UncertainInput&) = default;
 };
 
 struct Scenario {
@@ -91,6 +137,8 @@ struct Scenario {
     // [suspension]: at most one of the two (neither: half-lives are not computed).
     std::optional<double> volume_fraction;        // (0, 0.64)
     std::optional<double> number_density_per_m3;  // > 0
+    std::optional<double> mass_fraction;          // (0, 1): with particle_density_kg_per_m3
+    std::optional<double> particle_density_kg_per_m3;  // for mass_fraction and the Stokes settling distance
 
     // [medium]: temperature from temperature_C or temperature_K (default 25 degC). Outside
     // liquid water (0-100 degC) both overrides must be given.
@@ -113,6 +161,11 @@ struct Scenario {
     OutputSettings output;
     StorageSettings storage;
     bool storage_given = false;  // the input has a [storage] section (else the defaults above hold)
+    CalibrationSettings calibration;
+    bool calibration_given = false;
+
+    // Values given as distributions, in the order of their input indices.
+    std::vector<UncertainInput> uncertain_inputs;
 
     // "key = value" for each default that was applied, e.g. "[interaction] min_gap_nm = 0.2".
     std::vector<std::string> defaults_applied;
@@ -130,6 +183,13 @@ struct Scenario {
 
 // The resolved scenario (defaults filled in) as TOML text, which parses back to the same Scenario.
 [[nodiscard]] std::string resolved_scenario_toml(const Scenario& scenario);
+
+// Monte Carlo input index of a slot: 3 s + {0, 1, 2} for species s's radius, Hamaker constant
+// and potential; 64-67 the suspension keys, 80-81 the medium keys, 96 the salt concentration.
+// Fixed by the slot, so making another value uncertain never changes this one's draws.
+[[nodiscard]] std::uint32_t input_index_of(InputSlot slot, int species);
+// The scenario with one value replaced (a Monte Carlo draw), e.g. species 0's radius_nm.
+void set_input(Scenario& scenario, InputSlot slot, int species, double value);
 
 // Names for the double-layer model as written in scenario files.
 [[nodiscard]] const char* double_layer_name(potentials::DoubleLayerModel model);

@@ -3,6 +3,7 @@
 // pair model per species pair and the particle number density, in SI units.
 #include <cstddef>
 #include <optional>
+#include <string>
 
 #include "potentials/electrolyte.hpp"
 #include "potentials/medium.hpp"
@@ -38,8 +39,19 @@ namespace brownfloc::sim {
 // ln a, truncated at +-3 sd (as the sampler draws it).
 [[nodiscard]] double mean_cubed_radius_m3(const SpeciesSpec& species);
 
+// Volume fraction of particles: volume_fraction, or from mass_fraction w and
+// particle_density_kg_per_m3 rho_p as phi = (w / rho_p) / (w / rho_p + (1 - w) / rho_m), with
+// the medium's density rho_m taken as water's at the scenario temperature (Tanaka et al.
+// 2001); empty when neither is given.
+[[nodiscard]] std::optional<double> volume_fraction_of(const Scenario& scenario);
+
 // Total particle number density [1/m^3], from number_density_per_m3 or from the volume
-// fraction and the number-weighted mean particle volume; empty without [suspension].
+// fraction (volume_fraction_of) and the number-weighted mean particle volume; empty without
+// [suspension].
 [[nodiscard]] std::optional<double> number_density_per_m3(const Scenario& scenario);
+
+// For commands that take one value per key (dlvo, ccc): a warning listing the values given as
+// distributions and the medians used in their place; empty when there are none.
+[[nodiscard]] std::optional<std::string> medians_used_warning(const Scenario& scenario);
 
 }  // namespace brownfloc::sim

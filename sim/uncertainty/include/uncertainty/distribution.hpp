@@ -60,6 +60,9 @@ public:
     // As written in a scenario: "{ mean = 10, sd = 4 }", or "10" for a point.
     [[nodiscard]] std::string text() const;
 
+    // Same kind and the same parameters, bit for bit.
+    friend bool operator==(const Distribution&, const Distribution&) = default;
+
 private:
     Distribution(DistributionKind kind, double first, double second) noexcept
         : kind_{kind}, first_{first}, second_{second} {}
