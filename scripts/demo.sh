@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # The demo: DLVO interaction and stability of a latex in salt, the CCC of a pigment
 # dispersion against hard-water calcium, a shelf-life estimate for a latex paint made up with
-# hard water, and a short aggregation run of a silica sol after
+# hard water (uncertain inputs, with a plot of time against salt), the same paint calibrated
+# to measured stability ratios, and a short aggregation run of a silica sol after
 # a salt shock (under a minute on two cores), and a picture of its last frame. Run from the
 # project root after building.
 set -euo pipefail
@@ -10,7 +11,10 @@ bin=build/bin/brownfloc
 echo
 "$bin" ccc scenarios/002-pigment-coating.toml
 echo
-"$bin" shelf-life scenarios/006-latex-paint-shelf-life.toml
+"$bin" shelf-life scenarios/006-latex-paint-shelf-life.toml --plot build/shelf-life.svg
+echo "shelf-life: the time against salt, with the Monte Carlo band, is in build/shelf-life.svg"
+echo
+"$bin" shelf-life scenarios/007-latex-paint-calibrated.toml
 echo
 "$bin" run scenarios/005-silica-sol-salt-shock.toml -o build/demo-run --overwrite
 echo

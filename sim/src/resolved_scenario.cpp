@@ -166,6 +166,8 @@ void write_storage(TomlWriter& w, const Scenario& s) {
     w.text("second_salt", st.second_salt);
     w.integer("samples", st.samples);
     w.integer("band_samples", st.band_samples);
+    if (st.viscosities_mPa_s) w.numbers("viscosities_mPa_s", *st.viscosities_mPa_s);
+    if (st.relative_permittivities) w.numbers("relative_permittivities", *st.relative_permittivities);
 }
 
 void write_calibration(TomlWriter& w, const Scenario& s) {

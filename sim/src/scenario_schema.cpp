@@ -61,7 +61,9 @@ SectionSpec storage_section() {
              number("fractal_dimension", gt(1), le(3)),
              of_kind("second_salt", ValueKind::salt_formula),
              integer("samples", ge(1), le(1e7)),
-             integer("band_samples", ge(1), le(1e6))},
+             integer("band_samples", ge(1), le(1e6)),
+             number_list("viscosities_mPa_s", 1, max_storage_temperatures, gt(0), {}),
+             number_list("relative_permittivities", 1, max_storage_temperatures, ge(1), {})},
             {},
             {}};
 }

@@ -143,7 +143,7 @@ private:
 // Only a scenario with a [storage] section records anything about storage: the defaults of
 // StorageSettings hold otherwise, silently, so that scenarios for other commands (and the
 // resolved scenario.toml of a run) do not change.
-void read_storage(const toml::table& root, Scenario& s) {
+void read_storage(const std::string& source, const toml::table& root, Scenario& s) {
     const toml::node* node = root.get("storage");
     s.storage = StorageSettings{};
     s.storage_given = node != nullptr;
@@ -166,6 +166,18 @@ void read_storage(const toml::table& root, Scenario& s) {
     read.text("second_salt", st.second_salt);
     read.integer("samples", st.samples);
     read.integer("band_samples", st.band_samples);
+    // Optional, no default: water's properties at each temperature otherwise.
+    for (const auto& [key, field] : {std::pair<std::string_view, std::optional<std::vector<double>>*>{
+                                         "viscosities_mPa_s", &st.viscosities_mPa_s},
+                                     {"relative_permittivities", &st.relative_permittivities}}) {
+        *field = numbers_at(table, key);
+        if (*field && (*field)->size() != st.temperatures_C.size()) {
+            const toml::node& list = *table.get(key);
+            fail(source, list, "storage", key, &list,
+                 "gives " + std::to_string((*field)->size()) + " values for " + std::to_string(st.temperatures_C.size()) +
+                     " temperatures_C: give one per storage temperature, in the same order");
+        }
+    }
 }
 
 }  // namespace
@@ -174,7 +186,7 @@ void read_settings(const std::string& source, const toml::table& root, Scenario&
     read_interaction(section_or_empty(root, "interaction"), scenario);
     read_run(section_or_empty(root, "run"), scenario);
     read_output(section_or_empty(root, "output"), scenario.output);
-    read_storage(root, scenario);
+    read_storage(source, root, scenario);
     read_calibration(source, root, scenario);
 }
 

@@ -116,6 +116,7 @@ std::string interval_text(const uncertainty::PercentileEstimate& e) {
         if (std::isinf(t_s) && t_s < 0) return std::string("open");
         return t_s <= shelf_life_time_limit_s ? g4(t_s / seconds_per_day) : std::string("beyond range");
     };
+    if (!(e.lower <= shelf_life_time_limit_s)) return "beyond range (above 1e12 s)";
     return "from " + end(e.lower) + " to " + end(e.upper) + " days";
 }
 
@@ -225,14 +226,29 @@ Json shelf_life_json(const ShelfLifeReport& r, const Scenario& s) {
     j.set("model_choices_note", "time to the criterion at the first temperature, every input at its median");
     if (r.calibration) {
         j.set("calibration", calibration_json(*r.calibration));
+        // The fitted values at the top level too: calibrated_surface_potential_mV, calibrated_hamaker_J.
+        for (const FittedParameter& p : r.calibration->parameters) {
+            Json fitted = Json::object();
+            fitted.set("estimate", p.estimate);
+            fitted.set_number_or_null("standard_error", std::isfinite(p.standard_error) ? std::optional<double>(p.standard_error) : std::nullopt,
+                                      "the data do not determine this parameter");
+            fitted.set("ci95_low", p.ci95_low);
+            fitted.set("ci95_high", p.ci95_high);
+            if (p.bound_message) fitted.set("bound_message", *p.bound_message);
+            j.set("calibrated_" + p.name, fitted);
+        }
         j.set("calibration_note", "the Monte Carlo draws the fitted parameters jointly from the fit (normal, with its "
                                   "covariance)");
     }
     j.set_number_or_null("settling_distance_m", r.settling_distance_m, r.settling_note);
+    j.set_number_or_null("gravitational_length_m", r.gravitational_length_m,
+                         "needs particle_density_kg_per_m3 different from the medium's");
     j.set("not_modelled", Json(shelf_life_not_modelled()));
     j.set("cautions", Json(shelf_life_cautions()));
     j.set("warnings", Json(r.warnings));
-    j.set("input_sha256", sha256_hex(resolved_scenario_toml(s)));
+    const std::string resolved = resolved_scenario_toml(s);
+    j.set("input_sha256", sha256_hex(resolved));
+    j.set("resolved_scenario", resolved);
     j.set("seed", s.run.seed);
     add_common_json(j, s);
     return j;
@@ -311,7 +327,8 @@ void write_shelf_life_text(std::ostream& out, const ShelfLifeReport& r, const Sc
             << (r.varied_salt.empty() ? std::string("salt") : r.varied_salt) << " " << margin_text(e.added_salt_p5)
             << " / " << margin_text(e.added_salt_p50) << "; " << s.storage.second_salt << " "
             << margin_text(e.added_second_salt_p5) << " / " << margin_text(e.added_second_salt_p50);
-        if (e.ccc_p5_mM) out << "; CCC p5 " << g4(*e.ccc_p5_mM) << " mM";
+        if (e.ccc_p5_mM && e.ccc_p50_mM)
+            out << "; CCC " << g4(*e.ccc_p5_mM) << " / " << g4(*e.ccc_p50_mM) << " mM";
         out << "\n";
     }
     if (r.ccc_mM) out << "  CCC of " << r.varied_salt << " at the medians: " << g4(*r.ccc_mM) << " mM\n";
@@ -337,8 +354,17 @@ void write_shelf_life_text(std::ostream& out, const ShelfLifeReport& r, const Sc
     for (std::size_t k = 0; k < missing.size(); ++k) out << (k ? "; " : "") << missing[k];
     out << ".\n";
     if (r.settling_distance_m) out << "Stokes settling over the target time: " << g4(*r.settling_distance_m * 1e3)
-                                   << " mm (" << r.settling_note << ")\n";
+                                   << " mm (" << r.settling_note << ")"
+                                   << (r.gravitational_length_m
+                                           ? "; Brownian motion spreads single particles over a gravitational length "
+                                             "kT / (drho V g) = " + g4(*r.gravitational_length_m * 1e3) + " mm (Perrin 1909)"
+                                           : std::string())
+                                   << "\n";
     else out << "Settling: " << r.settling_note << "\n";
+    out << "\nProvenance: brownfloc " << BROWNFLOC_VERSION << "; input SHA-256 "
+        << sha256_hex(resolved_scenario_toml(s)) << " (of the resolved scenario, distributions included); seed "
+        << s.run.seed << "; " << r.samples << " samples; " << double_layer_name(s.double_layer) << ", "
+        << (s.retarded_vdw ? "retarded" : "non-retarded") << " van der Waals, min_gap " << g4(s.min_gap_nm) << " nm\n";
     out << "\nCautions\n";
     for (const std::string& c : shelf_life_cautions()) out << "  - " << c << "\n";
     if (!r.warnings.empty()) {

@@ -27,6 +27,18 @@ double log_sum_exp(const std::vector<double>& x) {
     return top + std::log(sum);
 }
 
+// The [storage] per-temperature viscosity and permittivity, when given, at the storage
+// temperature they belong to (matched to 1e-9 K: the temperatures come from the same list).
+void apply_storage_medium(Scenario& at, double temperature_K) {
+    const StorageSettings& st = at.storage;
+    for (std::size_t k = 0; k < st.temperatures_C.size(); ++k) {
+        if (std::abs(st.temperatures_C[k] + 273.15 - temperature_K) > 1e-9) continue;
+        if (st.viscosities_mPa_s) at.viscosity_mPa_s = (*st.viscosities_mPa_s)[k];
+        if (st.relative_permittivities) at.relative_permittivity = (*st.relative_permittivities)[k];
+        return;
+    }
+}
+
 }  // namespace
 
 const char* rule_of_thumb_caution() {
@@ -43,14 +55,16 @@ std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const
                                                  SurfaceHold hold, bool hydrodynamic_correction,
                                                  const Scenario& charge_reference, WQuadrature quadrature) {
     if (temperatures_K.empty()) throw InputError(scenario.source + ": [storage] temperatures_C: at least one is needed");
+    const StorageSettings& st = scenario.storage;
     if (temperatures_K.size() > 1) {
-        if (scenario.viscosity_mPa_s)
+        if (scenario.viscosity_mPa_s && !st.viscosities_mPa_s)
             throw InputError(scenario.source + ": [medium] viscosity_mPa_s: a fixed viscosity holds at one temperature "
                              "only; remove it (water's viscosity is then computed at each storage temperature) or "
-                             "give one storage temperature");
-        if (scenario.relative_permittivity)
+                             "give one storage temperature, or [storage] viscosities_mPa_s, one per temperature");
+        if (scenario.relative_permittivity && !st.relative_permittivities)
             throw InputError(scenario.source + ": [medium] relative_permittivity: a fixed permittivity holds at one "
-                             "temperature only; remove it or give one storage temperature");
+                             "temperature only; remove it, give one storage temperature, or give [storage] "
+                             "relative_permittivities, one per temperature");
     }
     const std::optional<double> n0 = number_density_per_m3(scenario);
     if (!n0) throw InputError(scenario.source + ": [suspension]: shelf-life estimates need volume_fraction or "
@@ -73,6 +87,7 @@ std::vector<StorageCondition> storage_conditions(const Scenario& scenario, const
     for (double temperature_K : temperatures_K) {
         Scenario at = scenario;
         at.temperature_K = temperature_K;
+        apply_storage_medium(at, temperature_K);
         StorageCondition c;
         c.temperature_K = temperature_K;
         c.medium = medium_of(at);

@@ -72,6 +72,13 @@ def main():
             for margin in ("added_salt_to_target_mM", "added_second_salt_to_target_mM"):
                 if not {"p5", "p50"} <= set(c.get(margin, {})):
                     problems.append(f"conditions.{i}.{margin} must hold p5 and p50")
+        if "calibration" in doc:
+            for name in doc["calibration"].get("fit_coordinates", []):
+                key = "calibrated_" + ("hamaker_J" if "hamaker" in name else name)
+                if not {"estimate", "standard_error", "ci95_low", "ci95_high"} <= set(doc.get(key, {})):
+                    problems.append(f"missing {key} with estimate, standard_error and the 95 % interval")
+            if "jointly" not in doc.get("calibration_note", ""):
+                problems.append("calibration_note must say the fit is drawn jointly")
         if not any("do not use it to turn accelerated-test results" in doc.get("rule_of_thumb_note", "") for _ in [0]):
             problems.append("the rule-of-thumb sentence is missing")
     else:

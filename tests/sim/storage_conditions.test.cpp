@@ -93,3 +93,24 @@ TEST_CASE("fixed medium overrides with several temperatures and a missing suspen
     s = parse_scenario(no_suspension, "paint.toml");
     CHECK_THROWS_WITH(storage_conditions(s, {298.15}, SurfaceHold::potential, true), Contains("[suspension]"));
 }
+
+TEST_CASE("a medium given per storage temperature is used at each temperature", "[sim][shelf]") {
+    // t1/2 = 3 eta / (4 kT n0) (Smoluchowski 1917) with the eta given for each temperature.
+    const Scenario s = parse_scenario(paint + "[storage]\ntemperatures_C = [25, 40]\nviscosities_mPa_s = [2.0, 1.5]\n"
+                                              "relative_permittivities = [70, 66]\n",
+                                      "paint.toml", {"medium.viscosity_mPa_s=2.0", "medium.relative_permittivity=70"});
+    const auto c = storage_conditions(s, {25 + celsius, 40 + celsius}, SurfaceHold::potential, true);
+    CHECK_THAT(c[0].medium.viscosity_Pa_s, WithinRel(2.0e-3, 1e-15));
+    CHECK_THAT(c[1].medium.viscosity_Pa_s, WithinRel(1.5e-3, 1e-15));
+    CHECK_THAT(c[1].medium.relative_permittivity, WithinRel(66.0, 1e-15));
+    CHECK_THAT(c[1].half_life_fast_s / c[0].half_life_fast_s,
+               WithinRel((1.5 / (40 + celsius)) / (2.0 / (25 + celsius)), 1e-12));
+    // A list of the wrong length is refused where it is written.
+    try {
+        (void)parse_scenario(paint + "[storage]\ntemperatures_C = [25, 40]\nviscosities_mPa_s = [2.0]\n", "paint.toml");
+        FAIL("accepted");
+    } catch (const brownfloc::InputError& e) {
+        CHECK_THAT(std::string(e.what()),
+                   Contains("[storage] viscosities_mPa_s = [2.0]: gives 1 values for 2 temperatures_C"));
+    }
+}

@@ -77,6 +77,10 @@ struct StorageSettings {  // [storage]: used by `brownfloc shelf-life`; validate
     std::string second_salt = "CaCl2";           // salt formula added on top for the second margin
     std::int64_t samples = 10000;                // Monte Carlo samples (>= 1)
     std::int64_t band_samples = 1000;            // samples per point of the margins and the plot band
+    // A non-aqueous or thickened medium at several temperatures: its viscosity and permittivity
+    // at each of temperatures_C (same length); a single [medium] override holds at one only.
+    std::optional<std::vector<double>> viscosities_mPa_s;
+    std::optional<std::vector<double>> relative_permittivities;
 
     friend bool operator==(const StorageSettings&, const StorageSettings&) = default;
 };

@@ -82,6 +82,7 @@ struct ShelfLifeReport {
     std::string ccc_note;
     std::optional<double> settling_distance_m;  // Stokes, over the target time, at the first temperature
     std::string settling_note;
+    std::optional<double> gravitational_length_m;  // kT / (|drho| V g) of single particles
     std::optional<CalibrationResult> calibration;
     std::vector<ModelChoice> model_choices;
     std::optional<ShelfLifePlotData> plot;
