@@ -44,7 +44,8 @@ double dlvo_log10_w(double psi_mV, double concentration_mM, bool relative, doubl
     s.species[0].surface_potential_mV = psi_mV;
     s.species[0].hamaker_J = hamaker_J;
     s.salt_concentration_mM = concentration_mM;
-    const PairStability& pair = compute_dlvo_report(s).pairs[0];
+    const DlvoReport report = compute_dlvo_report(s);  // kept: pairs[0] lives in it
+    const PairStability& pair = report.pairs[0];
     return relative ? pair.log10_stability_ratio_experimental : pair.log10_stability_ratio_hydrodynamic;
 }
 
