@@ -212,6 +212,16 @@ ShelfLifeReport compute_shelf_life(const Scenario& given, const ShelfLifeOptions
                 r.warnings.push_back(u.key + " = " + u.distribution.text() +
                                      ": replaced by the calibration, whose fit the Monte Carlo draws from");
         std::erase_if(s.uncertain_inputs, fitted);
+        // The fit holds every value it does not fit at its median: an uncertain value that the
+        // data also constrain (the Hamaker constant, the radius) is then drawn independently of
+        // the fitted one, which ignores their correlation through the data.
+        for (const UncertainInput& u : s.uncertain_inputs)
+            if (!u.distribution.is_point() &&
+                (u.slot == InputSlot::hamaker_J || u.slot == InputSlot::radius_nm))
+                r.warnings.push_back(u.key + " = " + u.distribution.text() +
+                                     ": the calibration was fitted with it at its median and the Monte Carlo draws it "
+                                     "independently of the fitted parameters, which can widen or shift the band; fit it "
+                                     "too (hamaker_J) or give it as a single value");
         std::vector<std::string> names;
         for (const std::string& coordinate : r.calibration->fit_coordinates) names.push_back("fitted " + coordinate);
         joint = JointDraw{names, r.calibration->fit_values, r.calibration->covariance,

@@ -184,3 +184,24 @@ TEST_CASE("the plot data span the CCC and carry the band", "[sim][shelf][plot]")
     }
     CHECK_THAT(shelf_life_svg(*r.plot), Contains("input uncertainty only"));
 }
+
+TEST_CASE("after a calibration the fitted value is drawn from the fit and the others are flagged",
+          "[sim][shelf][calibration]") {
+    // A measured CCC alone fixes psi (one datum, one parameter); the scenario's distribution on
+    // psi gives way to the fit, and the Hamaker constant, held at its median in the fit, is
+    // flagged because the Monte Carlo draws it on its own.
+    Scenario s = parse_scenario(brownfloc::test::latex_paint_toml("{ mean = -25, sd = 2 }", electrolyte) +
+                                    "[calibration]\nccc_mM = 150\n",
+                                "paint.toml", {"particle.hamaker_J={ median = 1e-20, factor = 1.2 }"});
+    s.storage.temperatures_C = {25.0};
+    s.storage.samples = 200;
+    s.storage.band_samples = 10;
+    const ShelfLifeReport r = compute_shelf_life(s);
+    REQUIRE(r.calibration);
+    CHECK(r.input_names == std::vector<std::string>{"[particle] hamaker_J", "fitted surface_potential_mV"});
+    std::string warnings;
+    for (const std::string& w : r.warnings) warnings += w + "\n";
+    CHECK_THAT(warnings, Contains("[particle] surface_potential_mV = { mean = -25, sd = 2 }: replaced by the calibration"));
+    CHECK_THAT(warnings, Contains("[particle] hamaker_J = { median = 1e-20, factor = 1.2 }: the calibration was fitted"));
+    CHECK_THAT(shelf_life_json(r, s).dump(), Contains("\"calibrated_surface_potential_mV\""));
+}
