@@ -1,6 +1,7 @@
 // The ensemble behind the shelf-life margins, CCC percentiles and plot band
 // (shelf_life_ensemble.hpp).
 #include "shelf_life_ensemble.hpp"
+#include "shelf_life_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -16,18 +17,6 @@
 #include "uncertainty/percentile.hpp"
 
 namespace brownfloc::sim::detail {
-
-namespace {
-
-constexpr double max_total_salt_mM = 5000.0;  // as the scenario schema allows
-
-std::string g4(double v) {
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.4g", v);
-    return buffer;
-}
-
-}  // namespace
 
 // The scenario with `added_mM` of `formula` on top of its ions (as an ion list).
 Scenario with_added_salt(const Scenario& s, const std::string& formula, double added_mM) {
@@ -74,17 +63,15 @@ static std::vector<double> over_members(const Ensemble& e, const std::function<d
     return out;
 }
 
-// Percentile p (0-1) over the ensemble of the time at one temperature, each member with
-// `change` applied (salt added); the charge reference of each member is the member itself.
-double ensemble_time_percentile(const Ensemble& e, double temperature_K, double p, const ShelfLifeReport& r,
-                                bool hydrodynamic, const std::function<Scenario(const Scenario&)>& change) {
+std::vector<double> ensemble_times(const Ensemble& e, double temperature_K, const ShelfLifeReport& r,
+                                   bool hydrodynamic, const std::function<Scenario(const Scenario&)>& change) {
     std::vector<double> times = over_members(e, [&](const Scenario& member) {
         const std::vector<StorageCondition> c =
             storage_conditions(change(member), {temperature_K}, r.hold, hydrodynamic, member, e.quadrature);
         return time_from_log10_tau(c.front().log10_tau_s, r);
     });
     std::sort(times.begin(), times.end());
-    return uncertainty::percentile(times, p);
+    return times;
 }
 
 // The added salt at which the p-th percentile of the time falls to the target. The time falls
@@ -100,9 +87,10 @@ SaltMargin margin_for(const Ensemble& e, const std::string& formula, double temp
     }
     const double room = std::max(max_total_salt_mM - electrolyte_of(e.members.front()).ionic_strength_mol_per_m3(), 1.0);
     const auto f = [&](double added_mM) {
-        const double t = ensemble_time_percentile(e, temperature_K, p, r, hydrodynamic, [&](const Scenario& s) {
-            return with_added_salt(s, formula, added_mM);
-        });
+        const double t = uncertainty::percentile(
+            ensemble_times(e, temperature_K, r, hydrodynamic,
+                           [&](const Scenario& s) { return with_added_salt(s, formula, added_mM); }),
+            p);
         return std::isfinite(t) ? std::log(t / r.target_s) : 1e3;
     };
     double hi = room, f_hi = f(hi);

@@ -27,11 +27,11 @@ struct Ensemble {
 [[nodiscard]] Scenario at_varied_salt(const Scenario& s, double c_mM);
 // Time to the criterion [s] from log10 tau; +inf when it overflows.
 [[nodiscard]] double time_from_log10_tau(double log10_tau, const ShelfLifeReport& r);
-// Percentile p (0-1) over the ensemble of the time at one temperature, each member with
-// `change` applied; the charge reference of each member is the member itself.
-[[nodiscard]] double ensemble_time_percentile(const Ensemble& e, double temperature_K, double p,
-                                              const ShelfLifeReport& r, bool hydrodynamic,
-                                              const std::function<Scenario(const Scenario&)>& change);
+// The time at one temperature of every member with `change` applied (salt added), ascending,
+// ready for uncertainty::percentile; the charge reference of each member is the member itself.
+[[nodiscard]] std::vector<double> ensemble_times(const Ensemble& e, double temperature_K, const ShelfLifeReport& r,
+                                                 bool hydrodynamic,
+                                                 const std::function<Scenario(const Scenario&)>& change);
 // The added salt at which the p-th percentile of the time falls to the target (see the .cpp).
 [[nodiscard]] SaltMargin margin_for(const Ensemble& e, const std::string& formula, double temperature_K, double p,
                                     double time_now_s, const ShelfLifeReport& r, bool hydrodynamic);

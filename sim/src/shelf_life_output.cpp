@@ -4,6 +4,7 @@
 #include <cstdio>
 
 #include "report_format.hpp"
+#include "shelf_life_format.hpp"
 #include "sha256.hpp"
 #include "sim/dlvo_report.hpp"
 #include "shelf_criteria/criterion_time.hpp"
@@ -11,15 +12,9 @@
 
 namespace brownfloc::sim {
 
+using namespace detail;
+
 namespace {
-
-constexpr double seconds_per_day = 86400.0;
-
-std::string g4(double v) {
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.4g", v);
-    return buffer;
-}
 
 // A time for JSON: capped at the limit (beyond_range says so); an interval end that is open
 // (no order statistic far enough out) is null.

@@ -12,13 +12,14 @@
 #include <stdexcept>
 #include <string_view>
 
+#include "shelf_life_format.hpp"
 #include "sim/shelf_life_report.hpp"
 
 namespace brownfloc::sim {
 
 namespace {
 
-constexpr double seconds_per_day = 86400.0;
+using detail::seconds_per_day;
 constexpr double canvas_width_px = 820;
 constexpr double plot_left_px = 90, plot_right_px = 790, plot_top_px = 60, plot_bottom_px = 460;
 constexpr double legend_top_px = plot_bottom_px + 70, legend_row_px = 18, caption_row_px = 16;

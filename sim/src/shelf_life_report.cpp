@@ -22,6 +22,7 @@
 #include "sim/scenario_physics.hpp"
 #include "sim/shelf_life_samples.hpp"
 #include "shelf_life_ensemble.hpp"
+#include "shelf_life_format.hpp"
 
 namespace brownfloc::sim {
 
@@ -29,15 +30,7 @@ using namespace detail;
 
 namespace {
 
-constexpr double seconds_per_day = 86400.0;
-constexpr double max_total_salt_mM = 5000.0;  // as the scenario schema allows
 constexpr double standard_gravity_m_per_s2 = 9.80665;
-
-std::string g4(double v) {
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.4g", v);
-    return buffer;
-}
 
 shelf::CriterionSpec criterion_of(const Scenario& s) {
     shelf::CriterionSpec spec;
@@ -160,9 +153,10 @@ ShelfLifePlotData plot_data(const Scenario& s, const Ensemble& e, const ShelfLif
         const double c = low * std::pow(high / low, double(k) / (points - 1));
         const auto change = [&](const Scenario& m) { return at_varied_salt(m, c); };
         d.salt_mM.push_back(c);
-        d.p5_s.push_back(ensemble_time_percentile(e, temperature_K, 0.05, r, s.storage.hydrodynamic_correction, change));
-        d.p50_s.push_back(ensemble_time_percentile(e, temperature_K, 0.50, r, s.storage.hydrodynamic_correction, change));
-        d.p95_s.push_back(ensemble_time_percentile(e, temperature_K, 0.95, r, s.storage.hydrodynamic_correction, change));
+        const std::vector<double> times = ensemble_times(e, temperature_K, r, s.storage.hydrodynamic_correction, change);
+        d.p5_s.push_back(uncertainty::percentile(times, 0.05));
+        d.p50_s.push_back(uncertainty::percentile(times, 0.50));
+        d.p95_s.push_back(uncertainty::percentile(times, 0.95));
     }
     d.salt_name = r.varied_salt + (s.titrant ? " added" : "");
     d.criterion_label = std::string(shelf::criterion_name(r.criterion.criterion)) + " " + g4(r.criterion.value);
@@ -269,8 +263,9 @@ ShelfLifeReport compute_shelf_life(const Scenario& given, const ShelfLifeOptions
         e.log10_half_life_s = percentiles_of(sampled.log10_tau_s[k]);
         e.p5_time_over_target = std::min(e.time_s.p5.value, shelf_life_time_limit_s) / r.target_s;
         const double T = conditions[k].temperature_K;
-        const double band_p5 = ensemble_time_percentile(band, T, 0.05, r, hydrodynamic, [](const Scenario& m) { return m; });
-        const double band_p50 = ensemble_time_percentile(band, T, 0.50, r, hydrodynamic, [](const Scenario& m) { return m; });
+        const std::vector<double> band_times = ensemble_times(band, T, r, hydrodynamic, [](const Scenario& m) { return m; });
+        const double band_p5 = uncertainty::percentile(band_times, 0.05);
+        const double band_p50 = uncertainty::percentile(band_times, 0.50);
         if (has_varied_salt) {
             e.added_salt_p5 = margin_for(band, r.varied_salt, T, 0.05, band_p5, r, hydrodynamic);
             e.added_salt_p50 = margin_for(band, r.varied_salt, T, 0.50, band_p50, r, hydrodynamic);
